@@ -1,0 +1,36 @@
+import type { NextAuthConfig } from "next-auth";
+
+/**
+ * Edge-safe part of the Auth.js configuration, shared by the proxy and by auth.ts.
+ * Sessions are JWTs that carry the user, the active organisation and its roles; server code
+ * re-reads the membership from the database on every request (lib/auth/guard.ts).
+ */
+export const authConfig = {
+  pages: { signIn: "/sign-in" },
+  session: { strategy: "jwt", maxAge: 8 * 60 * 60 },
+  providers: [],
+  callbacks: {
+    authorized({ auth, request }) {
+      const path = request.nextUrl.pathname;
+      const open = path === "/sign-in" || path.startsWith("/invitations/") || path.startsWith("/api/");
+      if (open) return true;
+      return !!auth?.user;
+    },
+    jwt({ token, user }) {
+      if (user) {
+        token.userId = user.id as string;
+        token.organisationId = user.organisationId;
+        token.organisationName = user.organisationName;
+        token.roles = user.roles;
+      }
+      return token;
+    },
+    session({ session, token }) {
+      session.user.id = token.userId;
+      session.user.organisationId = token.organisationId;
+      session.user.organisationName = token.organisationName;
+      session.user.roles = token.roles;
+      return session;
+    },
+  },
+} satisfies NextAuthConfig;

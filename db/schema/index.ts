@@ -1,0 +1,5 @@
+export * from "./enums";
+export * from "./organisations";
+export * from "./sites";
+export * from "./months";
+export * from "./audit";

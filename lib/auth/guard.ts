@@ -1,0 +1,125 @@
+import "server-only";
+import { redirect } from "next/navigation";
+import { NextResponse } from "next/server";
+import { ZodError } from "zod";
+import { auth } from "@/auth";
+import { getDb } from "@/db";
+import { membership } from "@/db/queries/users";
+import { HttpError, forbidden, unauthorized, zodIssues } from "./errors";
+import { isRole, rolesGrant, type Permission, type Role } from "./roles";
+
+/** Who is acting, with the roles held in the active organisation as the database has them now. */
+export interface Actor {
+  userId: string;
+  name: string;
+  email: string;
+  organisationId: string;
+  organisationName: string;
+  roles: Role[];
+}
+
+/**
+ * The signed-in person, or null. The membership is read again from the database so a role
+ * taken away, or a removed member, loses access at once rather than when the session expires.
+ */
+export async function currentActor(): Promise<Actor | null> {
+  const session = await auth();
+  const u = session?.user;
+  if (!u?.id || !u.organisationId) return null;
+  const m = await membership(getDb(), u.id, u.organisationId);
+  if (!m) return null;
+  const roles = m.roles.filter(isRole);
+  if (roles.length === 0) return null;
+  return {
+    userId: u.id,
+    name: u.name ?? u.email ?? "",
+    email: u.email ?? "",
+    organisationId: u.organisationId,
+    organisationName: m.organisationName,
+    roles,
+  };
+}
+
+export function can(actor: Pick<Actor, "roles">, permission: Permission): boolean {
+  return rolesGrant(actor.roles, permission);
+}
+
+/** Throws the HttpError a handler should answer with when the actor lacks the permission. */
+export function assertCan(actor: Actor | null, permission: Permission, what: string): asserts actor is Actor {
+  if (!actor) throw unauthorized();
+  if (!can(actor, permission)) throw forbidden(what);
+}
+
+/** For pages and layouts: sends the signed-out to sign-in and the unauthorised to /forbidden. */
+export async function requirePageActor(permission: Permission = "org:read"): Promise<Actor> {
+  const actor = await currentActor();
+  if (!actor) redirect("/sign-in");
+  if (!can(actor, permission)) redirect(`/forbidden?need=${encodeURIComponent(permission)}`);
+  return actor;
+}
+
+export function errorResponse(err: unknown): NextResponse {
+  if (err instanceof HttpError) {
+    return NextResponse.json(
+      { error: { code: err.code, message: err.message, ...(err.issues.length ? { issues: err.issues } : {}) } },
+      { status: err.status },
+    );
+  }
+  if (err instanceof ZodError) {
+    return NextResponse.json(
+      { error: { code: "invalid_input", message: "The request body is not valid.", issues: zodIssues(err.issues) } },
+      { status: 400 },
+    );
+  }
+  console.error("[api] unexpected error:", err);
+  return NextResponse.json({ error: { code: "internal", message: "Something went wrong on our side; nothing was changed." } }, { status: 500 });
+}
+
+type RouteContext<P> = { params: Promise<P> };
+
+/**
+ * Wraps a route handler: 401 without a session, 403 without the permission, JSON errors with
+ * paths for bad input. The handler gets the actor and must scope every query to its organisation.
+ */
+export function apiRoute<P = Record<string, string>>(
+  permission: Permission,
+  what: string,
+  handler: (req: Request, actor: Actor, params: P) => Promise<Response>,
+) {
+  return async (req: Request, ctx: RouteContext<P>): Promise<Response> => {
+    try {
+      const actor = await currentActor();
+      assertCan(actor, permission, what);
+      return await handler(req, actor, await ctx.params);
+    } catch (err) {
+      return errorResponse(err);
+    }
+  };
+}
+
+export type ActionResult<T = undefined> =
+  | { ok: true; message?: string; data?: T }
+  | { ok: false; message: string; errors?: Record<string, string> };
+
+/** Wraps a server action with the same checks; errors come back as a typed result, not a throw. */
+export async function guardedAction<T>(
+  permission: Permission,
+  what: string,
+  run: (actor: Actor) => Promise<ActionResult<T>>,
+): Promise<ActionResult<T>> {
+  try {
+    const actor = await currentActor();
+    assertCan(actor, permission, what);
+    return await run(actor);
+  } catch (err) {
+    if (err instanceof HttpError) {
+      const errors = Object.fromEntries(err.issues.map((i) => [i.path, i.message]));
+      return { ok: false, message: err.message, ...(err.issues.length ? { errors } : {}) };
+    }
+    if (err instanceof ZodError) {
+      const errors = Object.fromEntries(zodIssues(err.issues).map((i) => [i.path, i.message]));
+      return { ok: false, message: "Some fields need attention.", errors };
+    }
+    throw err;
+  }
+}

@@ -1,0 +1,27 @@
+import type { DefaultSession } from "next-auth";
+import type { Role } from "@/lib/auth/roles";
+
+declare module "next-auth" {
+  interface User {
+    organisationId: string;
+    organisationName: string;
+    roles: Role[];
+  }
+  interface Session {
+    user: {
+      id: string;
+      organisationId: string;
+      organisationName: string;
+      roles: Role[];
+    } & DefaultSession["user"];
+  }
+}
+
+declare module "@auth/core/jwt" {
+  interface JWT {
+    userId: string;
+    organisationId: string;
+    organisationName: string;
+    roles: Role[];
+  }
+}
