@@ -13,7 +13,7 @@ const config = [
       "@typescript-eslint/no-unused-vars": ["error", { argsIgnorePattern: "^_", varsIgnorePattern: "^_" }],
     },
   },
-  { ignores: [".next/**", "node_modules/**", ".data/**", ".run/**", "test-results/**", "next-env.d.ts", "db/migrations/**"] },
+  { ignores: [".next/**", ".next-test/**", "node_modules/**", ".data/**", ".run/**", "test-results/**", "next-env.d.ts", "db/migrations/**"] },
 ];
 
 export default config;

@@ -25,6 +25,8 @@ const securityHeaders = [
 
 const nextConfig: NextConfig = {
   poweredByHeader: false,
+  // npm test builds into its own folder so a running development server keeps its build.
+  distDir: process.env.NEXT_DIST_DIR ?? ".next",
   typedRoutes: false,
   async headers() {
     return [{ source: "/:path*", headers: securityHeaders }];

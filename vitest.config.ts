@@ -4,7 +4,9 @@ import { defineConfig } from "vitest/config";
 const root = fileURLToPath(new URL(".", import.meta.url));
 
 export default defineConfig({
-  resolve: { alias: { "@": root } },
+  resolve: {
+    alias: { "@": root, "server-only": `${root}tests/support/server-only.ts` },
+  },
   test: {
     projects: [
       {

@@ -1,22 +1,25 @@
-import { and, eq, sql } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import { hashPassword } from "@/lib/auth/password";
 import type { Db } from "./client";
 import { DEMO_ORGANISATION, DEMO_USERS } from "./demo-users";
 import { recordAudit } from "./queries/audit";
+import { findUserByEmail } from "./queries/users";
 import { memberships, organisations, users } from "./schema";
 import { seedDemoSites } from "./seed-sites";
 
 export async function seedDemo(db: Db): Promise<void> {
-  // Hash outside the transaction: bcrypt is slow and needs no lock.
+  // Hash outside the transaction (bcrypt is slow and needs no lock), and only for new accounts.
   const hashes = new Map<string, string>();
-  for (const u of DEMO_USERS) hashes.set(u.email, await hashPassword(u.password));
+  for (const u of DEMO_USERS) {
+    if (!(await findUserByEmail(db, u.email))) hashes.set(u.email, await hashPassword(u.password));
+  }
 
   await db.transaction(async (tx) => {
     await tx.insert(organisations).values(DEMO_ORGANISATION).onConflictDoNothing({ target: organisations.slug });
     const [org] = await tx.select().from(organisations).where(eq(organisations.slug, DEMO_ORGANISATION.slug));
 
     for (const u of DEMO_USERS) {
-      const [existing] = await tx.select().from(users).where(sql`lower(${users.email}) = ${u.email}`);
+      const existing = await findUserByEmail(tx, u.email);
       const user =
         existing ??
         (await tx.insert(users).values({ email: u.email, name: u.name, passwordHash: hashes.get(u.email)! }).returning())[0];

@@ -1,0 +1,59 @@
+import { randomUUID } from "node:crypto";
+import type { Session } from "next-auth";
+import type { Db } from "@/db/client";
+import { memberships, organisations, sites, users } from "@/db/schema";
+import { hashPassword } from "@/lib/auth/password";
+import { ROLES, type Role } from "@/lib/auth/roles";
+
+export const FIXTURE_PASSWORD = "Fixture#Passw0rd";
+let hash: string | null = null;
+
+export interface FixtureUser {
+  id: string;
+  email: string;
+  name: string;
+  roles: Role[];
+}
+
+export interface FixtureOrg {
+  id: string;
+  name: string;
+  siteId: string;
+  /** One member per role, keyed by role. */
+  members: Record<Role, FixtureUser>;
+  session(role: Role): Session;
+}
+
+/** A fresh organisation with one site and one member per role; unique names so runs never clash. */
+export async function createOrg(db: Db, label = "Org"): Promise<FixtureOrg> {
+  hash ??= await hashPassword(FIXTURE_PASSWORD);
+  const tag = randomUUID().slice(0, 8);
+  const [org] = await db
+    .insert(organisations)
+    .values({ name: `${label} ${tag}`, slug: `${label.toLowerCase()}-${tag}` })
+    .returning();
+  const [site] = await db
+    .insert(sites)
+    .values({ organisationId: org.id, name: `${label} works ${tag}`, code: `w${tag}` })
+    .returning();
+  const members = {} as Record<Role, FixtureUser>;
+  for (const role of ROLES) {
+    const email = `${role}.${tag}@fixture.example`;
+    const [u] = await db.insert(users).values({ email, name: `${role} ${tag}`, passwordHash: hash }).returning();
+    await db.insert(memberships).values({ userId: u.id, organisationId: org.id, roles: [role] });
+    members[role] = { id: u.id, email, name: u.name, roles: [role] };
+  }
+  return {
+    id: org.id,
+    name: org.name,
+    siteId: site.id,
+    members,
+    session(role: Role): Session {
+      const m = members[role];
+      return {
+        user: { id: m.id, email: m.email, name: m.name, organisationId: org.id, organisationName: org.name, roles: m.roles },
+        expires: new Date(Date.now() + 3600_000).toISOString(),
+      };
+    },
+  };
+}
