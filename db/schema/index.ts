@@ -3,3 +3,4 @@ export * from "./organisations";
 export * from "./sites";
 export * from "./months";
 export * from "./audit";
+export * from "./capture";

@@ -1,0 +1,38 @@
+import { and, asc, eq, isNull } from "drizzle-orm";
+import type { Db, Tx } from "../client";
+import { months, sites } from "../schema";
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** Active sites of one organisation, by name. */
+export async function listSites(db: Db | Tx, organisationId: string) {
+  return db
+    .select({ id: sites.id, name: sites.name, code: sites.code })
+    .from(sites)
+    .where(and(eq(sites.organisationId, organisationId), isNull(sites.archivedAt)))
+    .orderBy(asc(sites.name));
+}
+
+/**
+ * One site, only if it belongs to the organisation. A malformed id returns null instead of
+ * reaching PostgreSQL (which would reject it as an error), so callers answer 404 either way.
+ */
+export async function findSite(db: Db | Tx, organisationId: string, siteId: string) {
+  if (!UUID.test(siteId)) return null;
+  const [row] = await db
+    .select()
+    .from(sites)
+    .where(and(eq(sites.id, siteId), eq(sites.organisationId, organisationId)))
+    .limit(1);
+  return row ?? null;
+}
+
+/** The month record of a site, if anybody has started it. The site must already be checked. */
+export async function findMonth(db: Db | Tx, siteId: string, period: string) {
+  const [row] = await db
+    .select({ id: months.id, state: months.state, revision: months.revision, updatedAt: months.updatedAt })
+    .from(months)
+    .where(and(eq(months.siteId, siteId), eq(months.period, period)))
+    .limit(1);
+  return row ?? null;
+}
