@@ -1,0 +1,31 @@
+import DecimalBase from "decimal.js";
+
+/**
+ * Our own Decimal constructor at 50 significant digits. It is kept local to lib/emissions so this
+ * module does not depend on lib/balance's configuration; values arriving from lib/balance (built
+ * with another clone) are re-read through `dec()` so every operation here runs at our precision.
+ */
+export const D = DecimalBase.clone({ precision: 50, rounding: DecimalBase.ROUND_HALF_EVEN });
+export type Decimal = DecimalBase;
+
+export const ZERO = new D(0);
+export const ONE = new D(1);
+
+/** Read a Decimal, a decimal string or an integer into our clone without a float round-trip. */
+export function dec(x: DecimalBase.Value): Decimal {
+  return new D(x);
+}
+
+export function sum(values: Iterable<Decimal>): Decimal {
+  let total: Decimal = ZERO;
+  for (const v of values) total = total.plus(v);
+  return total;
+}
+
+/** Coverage factor for a 95 % interval of a normal distribution (GUM, Annex G). */
+export const K95 = new D("1.96");
+
+/** Parse "44/12" or "3.664" style strings into a Decimal; fractions stay exact until divided here. */
+export function parseRatio(numerator: string, denominator: string): Decimal {
+  return new D(numerator).div(new D(denominator));
+}

@@ -1,0 +1,165 @@
+import { z } from "zod";
+
+/**
+ * A factor set is data, not code: organisations can add their own (site-specific laboratory
+ * factors, a national inventory's factors) as JSON. Every number is a decimal string so no value
+ * passes through binary floating point, and every value names the table it comes from.
+ */
+
+const DECIMAL_RE = /^-?\d+(\.\d+)?([eE][-+]?\d+)?$/;
+const ISO_DATE_RE = /^\d{4}-\d{2}-\d{2}$/;
+
+export const decimalString = z.string().regex(DECIMAL_RE, "must be a decimal number written as a string");
+const isoDate = z.string().regex(ISO_DATE_RE, "must be a date YYYY-MM-DD");
+const sourceStatus = z.enum(["published", "from memory"]);
+
+/** Where a value comes from; `from_memory: true` must accompany status "from memory" and only it. */
+const citation = {
+  source: z.string().min(1, "a source naming the table is required"),
+  status: sourceStatus,
+  from_memory: z.boolean().optional(),
+  note: z.string().optional(),
+};
+
+function memoryMarkConsistent(v: { status: string; from_memory?: boolean }): boolean {
+  return (v.status === "from memory") === (v.from_memory === true);
+}
+const memoryMessage = { message: 'from_memory must be true exactly when status is "from memory"', path: ["from_memory"] };
+
+export const citedValueSchema = z
+  .object({
+    value: decimalString,
+    unit: z.string().min(1),
+    /** Expanded relative uncertainty at 95 %, in percent, where the source states one. */
+    uncertainty_pct: decimalString.optional(),
+    ...citation,
+  })
+  .refine(memoryMarkConsistent, memoryMessage);
+
+/** What one unit of activity is: factors are kg of gas per one unit of this activity. */
+export const activityBasisSchema = z.discriminatedUnion("kind", [
+  z.object({ kind: z.literal("energy"), unit: z.enum(["TJ", "GJ", "MMBtu"]), basis: z.enum(["NCV", "GCV"]) }),
+  z.object({ kind: z.literal("mass"), unit: z.enum(["t", "kg"]) }),
+]);
+
+export const fuelFactorsSchema = z.object({
+  label: z.string().min(1),
+  activity: activityBasisSchema,
+  /** kg CO2 per activity unit; null when the factor can only come from the month's analysis. */
+  co2: citedValueSchema.nullable(),
+  /** Prefer a factor derived from the month's analysis (carbon content) over `co2`. */
+  co2_from_analysis: z.boolean(),
+  /** kg CH4 / kg N2O per activity unit; null: the gas lies outside the set's scope. */
+  ch4: citedValueSchema.nullable(),
+  n2o: citedValueSchema.nullable(),
+  oxidation_factor: citedValueSchema,
+  /** Reference figures kept with the factor (e.g. kg C/GJ, TJ/Gg) so checks can cite them. */
+  carbon_content: citedValueSchema.optional(),
+  calorific_value: citedValueSchema.optional(),
+  /** Default energy content per volume unit, for volumes metered without an analysis. */
+  default_energy_per_volume: citedValueSchema.and(z.object({ volume_unit: z.enum(["scf", "Sm3", "Nm3"]) })).optional(),
+});
+
+const ratioSchema = z
+  .object({ numerator: decimalString, denominator: decimalString, unit: z.string().min(1), ...citation })
+  .refine(memoryMarkConsistent, memoryMessage)
+  .refine((r) => !/^-?0*(\.0*)?([eE].*)?$/.test(r.denominator), { message: "denominator must not be zero", path: ["denominator"] });
+
+const perTonneRowSchema = z.object({
+  id: z.string().min(1),
+  label: z.string().min(1),
+  fuel_requirement_gj_per_t: citedValueSchema.optional(),
+  carbon_content_kg_c_per_gj: citedValueSchema.optional(),
+  co2_t_per_t: citedValueSchema,
+});
+
+const benchmarkSchema = z
+  .object({
+    id: z.string().min(1),
+    label: z.string().min(1),
+    /** product-benchmark: a regulatory figure; reference: a literature figure shown for context. */
+    kind: z.enum(["product-benchmark", "reference"]),
+    value: decimalString,
+    unit: z.string().min(1),
+    applies_from: isoDate.nullable(),
+    applies_to: isoDate.nullable(),
+    ...citation,
+  })
+  .refine(memoryMarkConsistent, memoryMessage);
+
+const deductionRuleSchema = z
+  .object({ deducted: z.boolean(), ...citation })
+  .refine(memoryMarkConsistent, memoryMessage);
+
+const tierSchema = z.object({ tier: z.number().int().min(1).max(4), max_uncertainty_pct: decimalString, ...citation })
+  .refine(memoryMarkConsistent, memoryMessage);
+
+export const factorSetSchema = z
+  .object({
+    id: z.string().regex(/^[a-z0-9][a-z0-9-]*$/, "lowercase letters, digits and hyphens"),
+    version: z.string().min(1),
+    name: z.string().min(1),
+    description: z.string().optional(),
+    effective: z.object({ from: isoDate, to: isoDate.nullable() }),
+    stoichiometric_factor: ratioSchema,
+    fuels: z.record(z.string(), fuelFactorsSchema),
+    /** Analysis id → fuel key, for site-specific fuels; otherwise feed/fuel gas use "natural-gas". */
+    fuel_by_analysis: z.record(z.string(), z.string()).optional(),
+    default_per_tonne: z.array(perTonneRowSchema),
+    default_row: z.string().optional(),
+    benchmarks: z.array(benchmarkSchema),
+    gwp_default: z.enum(["AR4", "AR5", "AR6"]),
+    deduction_rules: z.object({
+      urea: deductionRuleSchema, storage: deductionRuleSchema, sale: deductionRuleSchema, other: deductionRuleSchema,
+    }),
+    activity_tiers: z.array(tierSchema).optional(),
+    grid_electricity: citedValueSchema.optional(),
+    steam: citedValueSchema.optional(),
+  })
+  .superRefine((set, ctx) => {
+    if (!set.fuels["natural-gas"]) {
+      ctx.addIssue({ code: "custom", path: ["fuels", "natural-gas"], message: "a natural-gas entry is required" });
+    }
+    for (const [key, fuel] of Object.entries(set.fuels)) {
+      if (fuel.co2 === null && !fuel.co2_from_analysis) {
+        ctx.addIssue({ code: "custom", path: ["fuels", key, "co2"], message: "co2 may be null only when co2_from_analysis is true" });
+      }
+    }
+    for (const [analysis, fuelKey] of Object.entries(set.fuel_by_analysis ?? {})) {
+      if (!set.fuels[fuelKey]) {
+        ctx.addIssue({ code: "custom", path: ["fuel_by_analysis", analysis], message: `no fuel "${fuelKey}" in fuels` });
+      }
+    }
+    if (set.default_row !== undefined && !set.default_per_tonne.some((r) => r.id === set.default_row)) {
+      ctx.addIssue({ code: "custom", path: ["default_row"], message: `no row "${set.default_row}" in default_per_tonne` });
+    }
+    if (set.effective.to !== null && set.effective.to < set.effective.from) {
+      ctx.addIssue({ code: "custom", path: ["effective", "to"], message: "ends before it starts" });
+    }
+  });
+
+export type FactorSet = z.infer<typeof factorSetSchema>;
+export type FuelFactors = z.infer<typeof fuelFactorsSchema>;
+export type CitedValue = z.infer<typeof citedValueSchema>;
+export type ActivityBasis = z.infer<typeof activityBasisSchema>;
+export type Benchmark = FactorSet["benchmarks"][number];
+export type PerTonneRow = FactorSet["default_per_tonne"][number];
+
+export interface FactorSetIssue { path: string; message: string }
+
+/** Render a zod issue path as a JSON path ($.fuels["natural-gas"].co2.value). */
+export function jsonPath(path: readonly PropertyKey[]): string {
+  let out = "$";
+  for (const p of path) {
+    if (typeof p === "number") out += `[${p}]`;
+    else if (typeof p === "string" && /^[A-Za-z_][A-Za-z0-9_]*$/.test(p)) out += `.${p}`;
+    else out += `[${JSON.stringify(String(p))}]`;
+  }
+  return out;
+}
+
+export function parseFactorSet(json: unknown): { ok: true; set: FactorSet } | { ok: false; issues: FactorSetIssue[] } {
+  const r = factorSetSchema.safeParse(json);
+  if (r.success) return { ok: true, set: r.data };
+  return { ok: false, issues: r.error.issues.map((i) => ({ path: jsonPath(i.path), message: i.message })) };
+}

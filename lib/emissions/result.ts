@@ -1,0 +1,37 @@
+import type { Decimal } from "./decimal";
+import type { BenchmarkComparison, IntensityFigures, TheoreticalMinimum } from "./intensity";
+import type { BalanceCheck, StreamEmission } from "./model";
+import type { TransferSummary } from "./transfers";
+import type { MeterTier, UncertaintyFigures } from "./uncertainty";
+import type { EmissionsMethod, Flag, GwpId } from "./types";
+
+export interface GasTotal { t: Decimal; co2e_t: Decimal }
+
+export interface EmissionsResult {
+  month: string;
+  method: EmissionsMethod;
+  factor_set: { id: string; version: string; name: string; built_in: boolean };
+  gwp: { id: GwpId; ch4: Decimal; n2o: Decimal; source: string; from_memory: boolean };
+  /** True for the default-factor method: a per-tonne estimate, not a monitored figure. */
+  screening_estimate: boolean;
+  by_stream: StreamEmission[];
+  by_gas: { co2: GasTotal; ch4: GasTotal; n2o: GasTotal };
+  co2: { gross_t: Decimal; deductible_t: Decimal; net_t: Decimal };
+  transfers: Omit<TransferSummary, "deduction_terms">;
+  emissions: {
+    co2_t: Decimal;             // direct CO2 before deductions
+    ch4_t: Decimal;
+    n2o_t: Decimal;
+    co2e_t: Decimal;            // direct total before deductions
+    transferred_co2_t: Decimal; // every co2-export, deducted or not
+    net_co2e_t: Decimal;        // co2e_t − the transfers the set's rules deduct
+  };
+  intensity: IntensityFigures;
+  benchmarks: BenchmarkComparison[];
+  theoretical_minimum: TheoreticalMinimum | null;
+  balance_check: BalanceCheck | null;
+  /** co2: of emissions.co2_t (gross); net_co2: of co2.net_t (deducted exports with their meters). */
+  uncertainty: { co2: UncertaintyFigures; net_co2: UncertaintyFigures };
+  tiers: MeterTier[];
+  flags: Flag[];
+}
