@@ -4,3 +4,4 @@ export * from "./sites";
 export * from "./months";
 export * from "./audit";
 export * from "./capture";
+export * from "./statements";
