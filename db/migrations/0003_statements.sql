@@ -52,6 +52,8 @@ CREATE TABLE "statements" (
 	CONSTRAINT "statements_period_format" CHECK (("statements"."kind" = 'monthly' AND "statements"."period" ~ '^[0-9]{4}-(0[1-9]|1[0-2])$') OR ("statements"."kind" = 'annual' AND "statements"."period" ~ '^[0-9]{4}$'))
 );
 --> statement-breakpoint
+-- Before the foreign keys: statements.certificate_fingerprint references this unique column.
+CREATE UNIQUE INDEX "signing_certificates_fingerprint_key" ON "signing_certificates" USING btree ("fingerprint_sha256");--> statement-breakpoint
 ALTER TABLE "signing_certificates" ADD CONSTRAINT "signing_certificates_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE restrict ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "signing_certificates" ADD CONSTRAINT "signing_certificates_uploaded_by_users_id_fk" FOREIGN KEY ("uploaded_by") REFERENCES "public"."users"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "statements" ADD CONSTRAINT "statements_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE restrict ON UPDATE no action;--> statement-breakpoint
@@ -60,7 +62,6 @@ ALTER TABLE "statements" ADD CONSTRAINT "statements_month_id_months_id_fk" FOREI
 ALTER TABLE "statements" ADD CONSTRAINT "statements_signer_user_id_users_id_fk" FOREIGN KEY ("signer_user_id") REFERENCES "public"."users"("id") ON DELETE restrict ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "statements" ADD CONSTRAINT "statements_certificate_fingerprint_signing_certificates_fingerprint_sha256_fk" FOREIGN KEY ("certificate_fingerprint") REFERENCES "public"."signing_certificates"("fingerprint_sha256") ON DELETE restrict ON UPDATE no action;--> statement-breakpoint
 CREATE INDEX "mail_outbox_due_idx" ON "mail_outbox" USING btree ("next_attempt_at") WHERE "mail_outbox"."status" = 'pending';--> statement-breakpoint
-CREATE UNIQUE INDEX "signing_certificates_fingerprint_key" ON "signing_certificates" USING btree ("fingerprint_sha256");--> statement-breakpoint
 CREATE UNIQUE INDEX "signing_certificates_one_active" ON "signing_certificates" USING btree ("organisation_id") WHERE "signing_certificates"."active";--> statement-breakpoint
 CREATE UNIQUE INDEX "statements_sha256_key" ON "statements" USING btree ("sha256");--> statement-breakpoint
 CREATE UNIQUE INDEX "statements_site_kind_period_revision_key" ON "statements" USING btree ("site_id","kind","period","revision");--> statement-breakpoint
