@@ -1,0 +1,94 @@
+// calculate(): one plant-month document in, every figure of the month out (typed, Decimal).
+import { type BalanceOptions, type ElementBalances, balanceFlags, elementBalances } from "./balances";
+import { Dec, dec } from "./decimal";
+import { type FeedFigures, feedFigures } from "./feed";
+import { type GasProperties, calorificValues } from "./gas-properties";
+import { type PlantReconciliation, reconcilePlant } from "./reconcile-plant";
+import { type EmissionsPart, buildEmissionsInput, emissionsPart } from "./result";
+import type { PlantMonth } from "./schema";
+import { type StreamFlow, analysesOf, streamFlow } from "./streams";
+import type { AnalysisFigures, Flag, StreamFigures } from "./types";
+import { UnitError } from "./units";
+
+export interface CalculateOptions extends BalanceOptions {
+  /** Run data reconciliation (default true). */
+  reconcile?: boolean;
+  /** Confidence of the reconciliation tests (default 0.95). */
+  confidence?: Dec;
+}
+
+export interface AnalysisResult extends AnalysisFigures {
+  id: string;
+  gas: GasProperties;
+  z_15c: Dec;
+  gcv_mj_per_m3_15c: Dec; // real gas, 15 °C / 15 °C
+  ncv_mj_per_m3_15c: Dec;
+}
+
+export interface CalculationResult {
+  site: string;
+  month: string;
+  streams: StreamFigures[];
+  flows: StreamFlow[];
+  analyses: Record<string, AnalysisResult>;
+  balances: ElementBalances;
+  feed: FeedFigures;
+  reconciliation: PlantReconciliation | null;
+  emissions: EmissionsPart;
+  flags: Flag[];
+}
+
+/** A stream that passed the schema but cannot be converted (e.g. GJ on a gas with no calorific value). */
+export class CalculationInputError extends Error {
+  constructor(readonly path: string, readonly reason: string) {
+    super(`${path}: ${reason}`);
+  }
+}
+
+export function analysisFigures(id: string, gas: GasProperties): AnalysisResult {
+  const cv = calorificValues(gas, "15C", "15C");
+  return {
+    id,
+    gas,
+    molar_mass: gas.molarMass,
+    carbon_mass_fraction: gas.carbonMassFraction,
+    carbon_atoms_per_mol: gas.atoms.C,
+    ncv_mj_per_kg: cv.netMass,
+    gcv_mj_per_kg: cv.grossMass,
+    z_15c: cv.z,
+    gcv_mj_per_m3_15c: cv.grossVolumeReal,
+    ncv_mj_per_m3_15c: cv.netVolumeReal,
+  };
+}
+
+export function calculate(doc: PlantMonth, options: CalculateOptions = {}): CalculationResult {
+  const { gases, flags: analysisFlags } = analysesOf(doc);
+  const flows = doc.streams.map((s, i) => {
+    try {
+      return streamFlow(s, gases);
+    } catch (e) {
+      if (e instanceof UnitError) throw new CalculationInputError(`streams[${i}].unit`, e.message);
+      throw e;
+    }
+  });
+  const balances = elementBalances(flows);
+  const feed = feedFigures(flows);
+  const reconciliation = options.reconcile === false ? null : reconcilePlant(flows, options.confidence ?? dec("0.95"));
+  const analyses = Object.fromEntries(Object.entries(gases).map(([id, g]) => [id, analysisFigures(id, g)]));
+  const partial = {
+    site: doc.site,
+    month: doc.month,
+    streams: flows.map((f) => f.figures),
+    flows,
+    analyses,
+    balances,
+    feed,
+    reconciliation,
+  };
+  const emissions = emissionsPart(buildEmissionsInput(doc, partial));
+  return {
+    ...partial,
+    emissions,
+    flags: [...analysisFlags, ...balanceFlags(flows, balances, options), ...(reconciliation?.flags ?? []), ...emissions.flags],
+  };
+}

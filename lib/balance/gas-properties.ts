@@ -1,0 +1,166 @@
+// Gas properties from a composition, ISO 6976:2016 method: ideal molar calorific values
+// summed over components, compressibility Z = 1 − (Σ xᵢ sᵢ)², real volumetric values =
+// ideal molar value / (Z·R·T/p). All in Decimal.
+import {
+  COMPONENTS, COMPONENT_DATA, CP_PRODUCTS, WATER_DCP, WATER_L15,
+  type Component, h2EquivalentsOf, molarMassOf, ATOMIC_WEIGHT,
+} from "./components";
+import { Dec, ONE, ZERO, HUNDRED, dec, sum } from "./decimal";
+
+export type Reference = "15C" | "0C" | "60F" | "68F";
+export type Composition = Partial<Record<Component, Dec>>;
+
+/** Molar gas constant, J/(mol K): CODATA 2018, exact since the 2019 SI. */
+export const R = dec("8.314462618");
+/** 1 psi in Pa: 0.45359237 kg × 9.80665 m/s² / (0.0254 m)², exact by definition. */
+export const PSI_PA = dec("0.45359237").times("9.80665").div(dec("0.0254").pow(2));
+/** 1 ft³ in m³, exact by definition (0.3048 m)³. */
+export const CUBIC_FOOT_M3 = dec("0.3048").pow(3);
+
+const fahrenheitToC = (f: string) => dec(f).minus(32).times(5).div(9);
+
+/** Metering/combustion references: Sm3 15 °C, Nm3 0 °C (101.325 kPa); scf 60 °F, 14.696 psia. 68 °F is 40 CFR 98 Subpart G's. */
+export const REFERENCES: Record<Reference, { tC: Dec; T: Dec; p: Dec }> = {
+  "15C": { tC: dec("15"), T: dec("288.15"), p: dec("101325") },
+  "0C": { tC: dec("0"), T: dec("273.15"), p: dec("101325") },
+  "60F": { tC: fahrenheitToC("60"), T: fahrenheitToC("60").plus("273.15"), p: dec("14.696").times(PSI_PA) },
+  "68F": { tC: fahrenheitToC("68"), T: fahrenheitToC("68").plus("273.15"), p: dec("14.696").times(PSI_PA) },
+};
+
+export interface GasProperties {
+  /** Mole fractions (0..1) after normalisation; only components present. */
+  fractions: Composition;
+  /** Sum of the analysis as given, mol %. */
+  sumPct: Dec;
+  /** True when the sum was not exactly 100 and the fractions were rescaled. */
+  normalised: boolean;
+  molarMass: Dec; // kg/kmol
+  atoms: { C: Dec; H: Dec; N: Dec; O: Dec }; // per mole of gas
+  h2EquivalentsPerMol: Dec; // 2C + H/2 − O per mole
+  n2PerMol: Dec; // N atoms / 2 per mole
+  carbonMassFraction: Dec; // kg C / kg gas
+}
+
+export class CompositionError extends Error {
+  constructor(readonly sumPct: Dec) {
+    super(`composition sums to ${sumPct.toFixed()} %, more than 0.5 from 100`);
+  }
+}
+
+/** Sum tolerance of an analysis, mol % (plant-month format). */
+export const SUM_TOLERANCE_PCT = dec("0.5");
+
+export function gasProperties(pct: Composition): GasProperties {
+  const entries = COMPONENTS.filter((c) => pct[c] !== undefined && !pct[c]!.isZero());
+  const sumPct = sum(entries.map((c) => pct[c]!));
+  if (sumPct.minus(HUNDRED).abs().gt(SUM_TOLERANCE_PCT)) throw new CompositionError(sumPct);
+  const fractions: Composition = {};
+  for (const c of entries) fractions[c] = pct[c]!.div(sumPct);
+  const over = (f: (c: Component) => Dec) => sum(entries.map((c) => fractions[c]!.times(f(c))));
+  const atoms = {
+    C: over((c) => new Dec(COMPONENT_DATA[c].atoms.C)),
+    H: over((c) => new Dec(COMPONENT_DATA[c].atoms.H)),
+    N: over((c) => new Dec(COMPONENT_DATA[c].atoms.N)),
+    O: over((c) => new Dec(COMPONENT_DATA[c].atoms.O)),
+  };
+  const molarMass = over(molarMassOf);
+  return {
+    fractions,
+    sumPct,
+    normalised: !sumPct.eq(HUNDRED),
+    molarMass,
+    atoms,
+    h2EquivalentsPerMol: over(h2EquivalentsOf),
+    n2PerMol: atoms.N.div(2),
+    carbonMassFraction: molarMass.isZero() ? ZERO : atoms.C.times(ATOMIC_WEIGHT.C).div(molarMass),
+  };
+}
+
+/** Summation factor at a metering reference; 60/68 °F extrapolated linearly from the 0 and 15 °C values. */
+export function summationFactor(c: Component, ref: Reference): Dec {
+  const { s0, s15 } = COMPONENT_DATA[c];
+  if (ref === "0C") return s0;
+  if (ref === "15C") return s15;
+  return s15.plus(s15.minus(s0).div(15).times(REFERENCES[ref].tC.minus(15)));
+}
+
+export function compressibility(gas: GasProperties, ref: Reference): Dec {
+  const s = sum(Object.entries(gas.fractions).map(([c, x]) => x.times(summationFactor(c as Component, ref))));
+  return ONE.minus(s.pow(2));
+}
+
+/** Ideal molar volume R·T/p, m³/kmol. */
+export function idealMolarVolume(ref: Reference): Dec {
+  const { T, p } = REFERENCES[ref];
+  return R.times(T).div(p).times(1000);
+}
+
+/** Real-gas molar volume Z·R·T/p, m³/kmol. */
+export function realMolarVolume(gas: GasProperties, ref: Reference): Dec {
+  return compressibility(gas, ref).times(idealMolarVolume(ref));
+}
+
+/** Component ideal molar gross CV at a combustion reference, kJ/mol, shifted from 15 °C by ΔCp of combustion. */
+export function componentGross(c: Component, ref: Reference): Dec {
+  const d = COMPONENT_DATA[c];
+  if (d.gross15.isZero()) return ZERO;
+  const { C, H, N, O } = d.atoms;
+  const o2 = new Dec(C).plus(new Dec(H).div(4)).minus(new Dec(O).div(2));
+  const dCp = CP_PRODUCTS.CO2.times(C)
+    .plus(CP_PRODUCTS.H2O_liquid.times(H).div(2))
+    .plus(CP_PRODUCTS.N2.times(N).div(2))
+    .minus(d.cp)
+    .minus(CP_PRODUCTS.O2.times(o2));
+  return d.gross15.plus(dCp.times(dec("15").minus(REFERENCES[ref].tC)).div(1000));
+}
+
+/** Component ideal molar net CV: gross − (H/2)·L(t), kJ/mol. */
+export function componentNet(c: Component, ref: Reference): Dec {
+  const gross = componentGross(c, ref);
+  if (gross.isZero()) return ZERO;
+  const L = WATER_L15.plus(WATER_DCP.times(dec("15").minus(REFERENCES[ref].tC)).div(1000));
+  return gross.minus(L.times(COMPONENT_DATA[c].atoms.H).div(2));
+}
+
+export interface CalorificValues {
+  grossMolar: Dec; // MJ/kmol (= kJ/mol), ideal
+  netMolar: Dec;
+  z: Dec;
+  molarVolume: Dec; // real, m³/kmol at the metering reference
+  grossVolumeIdeal: Dec; // MJ/m³
+  netVolumeIdeal: Dec;
+  grossVolumeReal: Dec;
+  netVolumeReal: Dec;
+  grossMass: Dec; // MJ/kg
+  netMass: Dec;
+}
+
+/** Calorific values with a combustion reference and a metering reference (e.g. 15/15, 25/0). */
+export function calorificValues(gas: GasProperties, metering: Reference, combustion: Reference = metering): CalorificValues {
+  const over = (f: (c: Component) => Dec) =>
+    sum(Object.entries(gas.fractions).map(([c, x]) => x.times(f(c as Component))));
+  const grossMolar = over((c) => componentGross(c, combustion));
+  const netMolar = over((c) => componentNet(c, combustion));
+  const z = compressibility(gas, metering);
+  const vIdeal = idealMolarVolume(metering);
+  const vReal = vIdeal.times(z);
+  return {
+    grossMolar,
+    netMolar,
+    z,
+    molarVolume: vReal,
+    grossVolumeIdeal: grossMolar.div(vIdeal),
+    netVolumeIdeal: netMolar.div(vIdeal),
+    grossVolumeReal: grossMolar.div(vReal),
+    netVolumeReal: netMolar.div(vReal),
+    grossMass: gas.molarMass.isZero() ? ZERO : grossMolar.div(gas.molarMass),
+    netMass: gas.molarMass.isZero() ? ZERO : netMolar.div(gas.molarMass),
+  };
+}
+
+/** Composition (mol %) read from decimal strings, e.g. for constants. */
+export function compositionOf(pct: Partial<Record<Component, string>>): Composition {
+  const out: Composition = {};
+  for (const [c, v] of Object.entries(pct)) out[c as Component] = dec(v as string);
+  return out;
+}

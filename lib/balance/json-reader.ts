@@ -1,0 +1,138 @@
+// A small JSON reader that keeps every number's literal digits. JSON.parse would turn
+// "0.1" into a binary double before we could see it; Node 20 also has no reviver
+// `context.source`. So numbers come back as JsonNumber objects holding the source text,
+// which the schema then reads straight into Decimal.
+
+export class JsonNumber {
+  constructor(readonly text: string) {}
+  toString(): string {
+    return this.text;
+  }
+}
+
+export type JsonValue = null | boolean | string | JsonNumber | JsonValue[] | { [key: string]: JsonValue };
+
+export class JsonSyntaxError extends Error {
+  constructor(
+    readonly reason: string,
+    readonly position: number,
+    readonly line: number,
+    readonly column: number,
+  ) {
+    super(`bad JSON at line ${line} column ${column} (position ${position}): ${reason}`);
+    this.name = "JsonSyntaxError";
+  }
+}
+
+const NUMBER = /-?(?:0|[1-9]\d*)(?:\.\d+)?(?:[eE][+-]?\d+)?/y;
+const ESCAPES: Record<string, string> = { '"': '"', "\\": "\\", "/": "/", b: "\b", f: "\f", n: "\n", r: "\r", t: "\t" };
+
+/** Parses JSON text; numbers become JsonNumber (literal kept), everything else as JSON.parse. */
+export function readJson(text: string): JsonValue {
+  let i = 0;
+
+  const fail = (reason: string, at = i): never => {
+    const before = text.slice(0, at).split("\n");
+    throw new JsonSyntaxError(reason, at, before.length, before[before.length - 1].length + 1);
+  };
+  const skip = () => {
+    while (i < text.length && " \t\n\r".includes(text[i])) i++;
+  };
+  const describe = () => (i >= text.length ? "end of input" : `'${text[i]}'`);
+
+  const readString = (): string => {
+    i++; // opening quote
+    let out = "";
+    while (true) {
+      if (i >= text.length) fail("unterminated string");
+      const ch = text[i];
+      if (ch === '"') {
+        i++;
+        return out;
+      }
+      if (ch === "\\") {
+        const esc = text[i + 1];
+        if (esc === "u") {
+          const hex = text.slice(i + 2, i + 6);
+          if (!/^[0-9a-fA-F]{4}$/.test(hex)) fail("bad \\u escape");
+          out += String.fromCharCode(parseInt(hex, 16));
+          i += 6;
+        } else if (esc !== undefined && esc in ESCAPES) {
+          out += ESCAPES[esc];
+          i += 2;
+        } else fail("bad escape in string");
+      } else if (ch < " ") fail("control character in string");
+      else {
+        out += ch;
+        i++;
+      }
+    }
+  };
+
+  const readValue = (): JsonValue => {
+    skip();
+    const ch = text[i];
+    if (ch === "{") {
+      i++;
+      const obj: { [key: string]: JsonValue } = {};
+      skip();
+      if (text[i] === "}") {
+        i++;
+        return obj;
+      }
+      while (true) {
+        skip();
+        if (text[i] !== '"') fail(`expected a property name, found ${describe()}`);
+        const key = readString();
+        skip();
+        if (text[i] !== ":") fail(`expected ':' after property name, found ${describe()}`);
+        i++;
+        // defineProperty so a key named __proto__ stays a plain data key
+        Object.defineProperty(obj, key, { value: readValue(), enumerable: true, writable: true, configurable: true });
+        skip();
+        if (text[i] === ",") i++;
+        else if (text[i] === "}") {
+          i++;
+          return obj;
+        } else fail(`expected ',' or '}', found ${describe()}`);
+      }
+    }
+    if (ch === "[") {
+      i++;
+      const arr: JsonValue[] = [];
+      skip();
+      if (text[i] === "]") {
+        i++;
+        return arr;
+      }
+      while (true) {
+        arr.push(readValue());
+        skip();
+        if (text[i] === ",") i++;
+        else if (text[i] === "]") {
+          i++;
+          return arr;
+        } else fail(`expected ',' or ']', found ${describe()}`);
+      }
+    }
+    if (ch === '"') return readString();
+    for (const [word, value] of [["true", true], ["false", false], ["null", null]] as const) {
+      if (text.startsWith(word, i)) {
+        i += word.length;
+        return value;
+      }
+    }
+    NUMBER.lastIndex = i;
+    const m = NUMBER.exec(text);
+    if (m) {
+      i += m[0].length;
+      return new JsonNumber(m[0]);
+    }
+    return fail(`unexpected ${describe()}`);
+  };
+
+  const value = readValue();
+  skip();
+  if (i < text.length) fail(`unexpected ${describe()} after the JSON value`);
+  return value;
+}

@@ -1,0 +1,127 @@
+// Reconciliation of one plant-month: the measured stream quantities (in their own units)
+// are adjusted within their stated uncertainty so the closable element balances hold.
+// Choice: a stream without uncertainty_pct is EXACT (σ = 0) and is never moved — a missing
+// uncertainty is not licence to shift a meter by an arbitrary amount. Fuel burnt with no
+// stack-co2 monitor leaves flue-gas carbon unmeasured; it enters as an unmeasured flow and is
+// eliminated by projection, which makes the carbon balance non-redundant in that case.
+import { BALANCE_NAMES, type BalanceName, balanceTerms, closure, elementBalances } from "./balances";
+import { Dec, HUNDRED, ZERO, dec } from "./decimal";
+import { reconcile, type Redundancy } from "./reconcile";
+import type { StreamFlow } from "./streams";
+import type { Flag } from "./types";
+
+/** Coverage factor of a 95 % expanded uncertainty (normal distribution). */
+export const COVERAGE_95 = dec("1.96");
+
+export interface StreamReconciliation {
+  id: string;
+  measured: Dec;
+  reconciled: Dec;
+  adjustment: Dec;
+  adjustment_pct: Dec | null;
+  sigma: Dec;
+  test_statistic: Dec | null;
+  suspect: boolean;
+  redundancy: Redundancy;
+}
+
+export interface PlantReconciliation {
+  constraints: BalanceName[];
+  streams: StreamReconciliation[];
+  unmeasured: { id: string; balance: BalanceName; kmol: Dec | null }[];
+  chi2: Dec;
+  dof: number;
+  chi2_critical: Dec | null;
+  z_critical: Dec;
+  passed: boolean;
+  closures_after: Record<BalanceName, Dec | null>;
+  flags: Flag[];
+}
+
+export function sigmaOf(flow: StreamFlow): Dec {
+  const u = flow.stream.uncertainty_pct;
+  return u ? u.div(HUNDRED).div(COVERAGE_95).times(flow.stream.quantity) : ZERO;
+}
+
+export function reconcilePlant(flows: StreamFlow[], confidence = dec("0.95")): PlantReconciliation | null {
+  const measured = elementBalances(flows);
+  const constraints = BALANCE_NAMES.filter((b) => measured.closable[b]);
+  if (constraints.length === 0) return null;
+  const terms = flows.map(balanceTerms);
+  const vars = flows.map((_, i) => i).filter((i) => constraints.some((b) => terms[i][b]));
+  const A = constraints.map((b) =>
+    vars.map((i) => {
+      const t = terms[i][b];
+      return t ? (t.side === "out" ? t.perUnit : t.perUnit.neg()) : ZERO;
+    }),
+  );
+  const has = (k: string) => flows.some((f) => f.stream.kind === k);
+  const unmeasured = constraints.includes("carbon") && has("fuel-gas") && !has("stack-co2")
+    ? [{ id: "flue-gas-carbon", balance: "carbon" as BalanceName }] : [];
+  const B = constraints.map((b) => unmeasured.map((u) => (u.balance === b ? dec(1) : ZERO)));
+  const sol = reconcile({
+    A, B, c: constraints.map(() => ZERO),
+    measured: vars.map((i) => flows[i].stream.quantity),
+    sigma: vars.map((i) => sigmaOf(flows[i])),
+    confidence,
+  });
+  const streams = vars.map((i, k): StreamReconciliation => {
+    const q = flows[i].stream.quantity;
+    return {
+      id: flows[i].stream.id,
+      measured: q,
+      reconciled: sol.reconciled[k],
+      adjustment: sol.adjustment[k],
+      adjustment_pct: q.isZero() ? null : sol.adjustment[k].div(q).times(HUNDRED),
+      sigma: sigmaOf(flows[i]),
+      test_statistic: sol.testStatistic[k],
+      suspect: sol.suspect[k],
+      redundancy: sol.redundancy[k],
+    };
+  });
+  const byIndex = new Map(vars.map((i, k) => [i, sol.reconciled[k]]));
+  const after = elementBalances(flows, (f) => byIndex.get(flows.indexOf(f)) ?? f.stream.quantity);
+  const closures_after = Object.fromEntries(
+    BALANCE_NAMES.map((b) => {
+      if (!constraints.includes(b)) return [b, null];
+      const extra = b === "carbon" && unmeasured.length ? (sol.unmeasured[0] ?? ZERO) : ZERO;
+      return [b, closure(after[b].in_kmol, after[b].out_kmol.plus(extra))];
+    }),
+  ) as Record<BalanceName, Dec | null>;
+  return {
+    constraints,
+    streams,
+    unmeasured: unmeasured.map((u, j) => ({ ...u, kmol: sol.unmeasured[j] })),
+    chi2: sol.chi2,
+    dof: sol.dof,
+    chi2_critical: sol.chi2Critical,
+    z_critical: sol.zCritical,
+    passed: sol.passed,
+    closures_after,
+    flags: reconciliationFlags(streams, sol.passed, sol.chi2, sol.chi2Critical, sol.zCritical),
+  };
+}
+
+/** Names the suspect meter; meters with the same largest statistic cannot be told apart and are named together. */
+export function reconciliationFlags(streams: StreamReconciliation[], passed: boolean, chi2: Dec, crit: Dec | null, zCrit: Dec): Flag[] {
+  const flags: Flag[] = [];
+  if (!passed && crit)
+    flags.push({ code: "reconciliation-global-test-failed", severity: "warning", message: `global test: χ² = ${chi2.toFixed(2)} exceeds ${crit.toFixed(2)} (95 %): the balances and the stated meter uncertainties disagree` });
+  const suspects = streams.filter((s) => s.suspect).sort((a, b) => b.test_statistic!.cmp(a.test_statistic!));
+  if (suspects.length) {
+    const top = suspects[0].test_statistic!;
+    const tied = suspects.filter((s) => s.test_statistic!.minus(top).abs().lte(top.times("1e-20")));
+    const names = tied.map((s) => s.id).join(", ");
+    const why = tied.length > 1 ? " (these meters sit in the same balances only and cannot be told apart)" : "";
+    flags.push({
+      code: "reconciliation-suspect-meter",
+      severity: "warning",
+      stream: tied[0].id,
+      message: `suspect meter: ${names}${why}; measurement test ${top.toFixed(2)} > ${zCrit.toFixed(2)}; reconciled adjustment ${tied[0].adjustment_pct?.toFixed(2) ?? "?"} %`,
+    });
+  }
+  const unchecked = streams.filter((s) => s.redundancy === "non-redundant").map((s) => s.id);
+  if (unchecked.length)
+    flags.push({ code: "reconciliation-non-redundant", severity: "info", message: `cannot be checked by the balances (non-redundant): ${unchecked.join(", ")}` });
+  return flags;
+}

@@ -1,0 +1,104 @@
+// Weighted least-squares data reconciliation of linear balances A·x + B·u + c = 0 with
+// measured x (standard deviations σ) and unmeasured u. Measurements with σ = 0 are exact:
+// they are moved to the constant term and never adjusted. The unmeasured flows are
+// eliminated by a projection P with P·B = 0 (Crowe's method), leaving G·x + h = 0 with
+// G = P·A. Then, with Σ = diag(σ²), r = G·m + h and V = G·Σ·Gᵀ:
+//   adjustment a = −Σ·Gᵀ·V⁻¹·r,  x̂ = m + a,  χ² = rᵀ·V⁻¹·r with rank(G) degrees of freedom,
+//   Cov(a) = Σ·Gᵀ·V⁻¹·G·Σ; measurement test zᵢ = |aᵢ| / √Cov(a)ᵢᵢ against the two-sided normal value.
+// A measurement whose column of G is zero cannot be checked (non-redundant): it keeps its value.
+import { Dec, ZERO, dec } from "./decimal";
+import {
+  type Matrix, type Vector, RELATIVE_TOLERANCE, dot, independentRows, inverse, leftNullSpace, matVec, maxAbs, multiply, rank, transpose,
+} from "./linalg";
+import { chiSquareQuantile, normalTwoSided } from "./stats";
+
+export interface ReconcileProblem {
+  A: Matrix; // constraints × measured
+  B: Matrix; // constraints × unmeasured (rows may be empty arrays)
+  c: Vector; // constant term
+  measured: Vector;
+  sigma: Vector; // standard deviation of each measurement; 0 = exact
+  confidence?: Dec; // default 0.95
+}
+
+export type Redundancy = "redundant" | "non-redundant" | "exact";
+
+export interface ReconcileSolution {
+  reconciled: Vector;
+  adjustment: Vector;
+  unmeasured: (Dec | null)[]; // null when not observable from the balances
+  redundancy: Redundancy[];
+  testStatistic: (Dec | null)[]; // null for exact and non-redundant measurements
+  suspect: boolean[];
+  chi2: Dec;
+  dof: number;
+  chi2Critical: Dec | null; // null when dof = 0
+  zCritical: Dec;
+  passed: boolean;
+}
+
+export function reconcile(p: ReconcileProblem): ReconcileSolution {
+  const n = p.measured.length;
+  const nu = p.B[0]?.length ?? 0;
+  const rows = p.A.length;
+  const conf = p.confidence ?? dec("0.95");
+  const adj = p.sigma.map((s, i) => (s.gt(0) ? i : -1)).filter((i) => i >= 0);
+  // Exact measurements join the constant term.
+  const c1 = p.c.map((ci, r) => p.A[r].reduce((s, a, j) => (p.sigma[j].gt(0) ? s : s.plus(a.times(p.measured[j]))), ci));
+  const P = leftNullSpace(p.B, rows, nu);
+  const Aadj = p.A.map((row) => adj.map((j) => row[j]));
+  let G = multiply(P, Aadj, adj.length);
+  let h = matVec(P, c1);
+  // Keep independent rows only, so V is nonsingular (dependent balances add no information).
+  const keep = G.length && adj.length ? independentRows(G, adj.length) : [];
+  G = keep.map((i) => G[i]);
+  h = keep.map((i) => h[i]);
+  const sig2 = adj.map((j) => p.sigma[j].pow(2));
+  const m = adj.map((j) => p.measured[j]);
+  const dof = G.length;
+  const adjustment: Vector = p.measured.map(() => ZERO);
+  const testStatistic: (Dec | null)[] = p.measured.map(() => null);
+  const redundancy: Redundancy[] = p.sigma.map((s) => (s.gt(0) ? "non-redundant" : "exact"));
+  let chi2 = ZERO;
+  if (dof > 0) {
+    const r = G.map((row, i) => dot(row, m).plus(h[i]));
+    const GS = G.map((row) => row.map((g, k) => g.times(sig2[k])));
+    const Vinv = inverse(multiply(GS, transpose(G, adj.length), dof));
+    const w = matVec(Vinv, r);
+    chi2 = dot(r, w);
+    const colTol = maxAbs(G).times(RELATIVE_TOLERANCE);
+    adj.forEach((j, k) => {
+      const gk = G.map((row) => row[k]);
+      adjustment[j] = sig2[k].times(dot(gk, w)).neg();
+      if (gk.every((g) => g.abs().lte(colTol))) return;
+      redundancy[j] = "redundant";
+      const cov = sig2[k].pow(2).times(dot(gk, matVec(Vinv, gk)));
+      testStatistic[j] = adjustment[j].abs().div(cov.sqrt());
+    });
+  }
+  const reconciled = p.measured.map((x, j) => x.plus(adjustment[j]));
+  const zCritical = normalTwoSided(conf);
+  const chi2Critical = dof > 0 ? chiSquareQuantile(conf, dof) : null;
+  return {
+    reconciled,
+    adjustment,
+    unmeasured: estimateUnmeasured(p, reconciled, nu),
+    redundancy,
+    testStatistic,
+    suspect: testStatistic.map((z) => z !== null && z.gt(zCritical)),
+    chi2,
+    dof,
+    chi2Critical,
+    zCritical,
+    passed: chi2Critical === null || chi2.lte(chi2Critical),
+  };
+}
+
+/** u from B·u = −(A·x̂ + c) by least squares; all null when B lacks full column rank (not observable). */
+function estimateUnmeasured(p: ReconcileProblem, x: Vector, nu: number): (Dec | null)[] {
+  if (nu === 0) return [];
+  if (rank(p.B, nu) < nu) return Array.from({ length: nu }, () => null);
+  const rhs = p.A.map((row, i) => dot(row, x).plus(p.c[i]).neg());
+  const Bt = transpose(p.B, nu);
+  return matVec(inverse(multiply(Bt, p.B, nu)), matVec(Bt, rhs));
+}
