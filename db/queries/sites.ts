@@ -1,4 +1,4 @@
-import { and, asc, eq, isNull } from "drizzle-orm";
+import { and, asc, eq, gte, isNull, lte } from "drizzle-orm";
 import type { Db, Tx } from "../client";
 import { months, sites } from "../schema";
 
@@ -35,4 +35,13 @@ export async function findMonth(db: Db | Tx, siteId: string, period: string) {
     .where(and(eq(months.siteId, siteId), eq(months.period, period)))
     .limit(1);
   return row ?? null;
+}
+
+/** Month records of all active sites of the organisation within [from, to] ("YYYY-MM", inclusive). */
+export async function listMonthsOfOrganisation(db: Db | Tx, organisationId: string, from: string, to: string) {
+  return db
+    .select({ siteId: months.siteId, period: months.period, state: months.state, revision: months.revision })
+    .from(months)
+    .innerJoin(sites, eq(sites.id, months.siteId))
+    .where(and(eq(sites.organisationId, organisationId), isNull(sites.archivedAt), gte(months.period, from), lte(months.period, to)));
 }
