@@ -97,7 +97,7 @@ export function inspectSignedPdf(pdf: Buffer): SignatureInspection | null {
   let p7: forge.pkcs7.PkcsSignedData & { rawCapture: Record<string, unknown> };
   try {
     // parseAllBytes off: the zero padding after the DER is expected (the types only know `strict`).
-    const fromDer = forge.asn1.fromDer as (b: forge.util.ByteBuffer, o: { parseAllBytes: boolean }) => forge.asn1.Asn1;
+    const fromDer = forge.asn1.fromDer as unknown as (b: forge.util.ByteBuffer, o: { parseAllBytes: boolean }) => forge.asn1.Asn1;
     const asn1 = fromDer(forge.util.createBuffer(der.toString("binary")), { parseAllBytes: false });
     p7 = forge.pkcs7.messageFromAsn1(asn1) as typeof p7;
   } catch (err) {
