@@ -1,0 +1,120 @@
+"use server";
+
+import { headers } from "next/headers";
+import { redirect } from "next/navigation";
+import { getDb } from "@/db";
+import { recordAudit } from "@/db/queries/audit";
+import { findInvitationByToken, invitationStatus, markInvitationAccepted } from "@/db/queries/invitations";
+import { grantMembership } from "@/db/queries/members";
+import { findUserByEmail, recordSignInAttempt, signInBlocked } from "@/db/queries/users";
+import { users } from "@/db/schema";
+import { hashPassword, passwordProblems, verifyPassword } from "@/lib/auth/password";
+import { isRole } from "@/lib/auth/roles";
+import { acceptExistingAccountSchema, acceptNewAccountSchema } from "@/lib/validations/invitation";
+import { formFields } from "@/lib/validations/members";
+import { STATUS_MESSAGES } from "./status-messages";
+
+export interface AcceptState {
+  message?: string;
+  errors?: Record<string, string>;
+  name?: string;
+}
+
+function firstErrors(issues: readonly { path: readonly PropertyKey[]; message: string }[]): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const i of issues) out[String(i.path[0] ?? "form")] ??= i.message;
+  return out;
+}
+
+async function clientIp(): Promise<string> {
+  const h = await headers();
+  return h.get("x-forwarded-for")?.split(",")[0]?.trim() || h.get("x-real-ip") || "local";
+}
+
+/**
+ * Public: accepting needs no session, the token is the proof. Creates the account (or, for an
+ * address that already has one, checks that account's password), adds the membership and
+ * marks the invitation used in one transaction with its audit events.
+ */
+export async function acceptInvitation(_prev: AcceptState, formData: FormData): Promise<AcceptState> {
+  const fields = formFields(formData);
+  const token = String(fields.token ?? "");
+  const db = getDb();
+  const preview = token ? await findInvitationByToken(db, token) : null;
+  if (!preview) return { message: STATUS_MESSAGES.unknown };
+  const status = invitationStatus(preview);
+  if (status !== "pending") return { message: STATUS_MESSAGES[status] };
+  const roles = preview.roles.filter(isRole);
+  const existing = await findUserByEmail(db, preview.email);
+
+  let newAccount: { name: string; passwordHash: string } | null = null;
+  if (existing) {
+    const parsed = acceptExistingAccountSchema.safeParse(fields);
+    if (!parsed.success) return { message: "Check the highlighted fields.", errors: firstErrors(parsed.error.issues) };
+    // Same limit as the sign-in form, so this page cannot be used to guess passwords.
+    const ip = await clientIp();
+    if (await signInBlocked(db, existing.email, ip)) {
+      return { message: "Too many unsuccessful attempts. Wait about 15 minutes before trying again." };
+    }
+    const ok = await verifyPassword(parsed.data.password, existing.passwordHash);
+    await recordSignInAttempt(db, existing.email, ip, ok);
+    if (!ok) return { message: "Check the highlighted fields.", errors: { password: "That is not the password of this account." } };
+    if (existing.disabled) return { message: "Your Synledger account is disabled. Ask the administrator who invited you to enable it." };
+  } else {
+    const parsed = acceptNewAccountSchema.safeParse(fields);
+    const name = String(fields.name ?? "");
+    if (!parsed.success) return { message: "Check the highlighted fields.", errors: firstErrors(parsed.error.issues), name };
+    const problems = passwordProblems(parsed.data.password, preview.email);
+    if (problems.length > 0) {
+      return { message: "Check the highlighted fields.", errors: { password: `Choose a stronger password: ${problems.join("; ")}.` }, name };
+    }
+    newAccount = { name: parsed.data.name, passwordHash: await hashPassword(parsed.data.password) };
+  }
+
+  const outcome = await db.transaction(async (tx) => {
+    // Locked and checked again: a revoke or a second click in the meantime wins cleanly.
+    const inv = await findInvitationByToken(tx, token, true);
+    if (!inv) return { message: STATUS_MESSAGES.unknown };
+    const now = invitationStatus(inv);
+    if (now !== "pending") return { message: STATUS_MESSAGES[now] };
+    let userId: string;
+    let label: string;
+    if (newAccount) {
+      const [created] = await tx
+        .insert(users)
+        .values({ email: inv.email.toLowerCase(), name: newAccount.name, passwordHash: newAccount.passwordHash })
+        .returning({ id: users.id });
+      userId = created.id;
+      label = newAccount.name;
+      await recordAudit(tx, {
+        organisationId: inv.organisationId,
+        actorUserId: userId,
+        actorLabel: label,
+        channel: "form",
+        action: "user.created",
+        entity: "user",
+        entityId: userId,
+        after: { email: inv.email, name: label, via: "invitation" },
+      });
+    } else {
+      userId = existing!.id;
+      label = existing!.name;
+    }
+    const change = await grantMembership(tx, inv.organisationId, userId, roles);
+    await markInvitationAccepted(tx, inv.id);
+    await recordAudit(tx, {
+      organisationId: inv.organisationId,
+      actorUserId: userId,
+      actorLabel: label,
+      channel: "form",
+      action: "invitation.accepted",
+      entity: "invitation",
+      entityId: inv.id,
+      before: { user: inv.email, roles: change.before },
+      after: { user: inv.email, roles: change.after },
+    });
+    return null;
+  });
+  if (outcome) return outcome;
+  redirect(`/sign-in?notice=${newAccount ? "joined" : "added"}`);
+}
