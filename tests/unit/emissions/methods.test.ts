@@ -52,7 +52,7 @@ describe("measured method checked against the carbon balance", () => {
     const u95 = Math.hypot(55000 * 0.015, 22000 * 0.02, 40000 * 0.02, 26000 * 0.05, 12000 * 0.05);
     expect(u95).toBeCloseTo(1887.9, 1);
     expect(r.balance_check!.difference_t.toString()).toBe("1000");
-    expect(r.balance_check!.u95_t.toNumber()).toBeCloseTo(u95, 6);
+    expect(r.balance_check!.u95_t!.toNumber()).toBeCloseTo(u95, 6);
     expect(r.balance_check!.within_uncertainty).toBe(true);
     expect(r.flags.map((f) => f.code)).not.toContain("measured-disagrees-with-balance");
     // Direct total before deductions adds the exported CO2 the monitors never see.
@@ -62,7 +62,7 @@ describe("measured method checked against the carbon balance", () => {
   it("beyond it: stack 29 000 t, 4 000 t off, U95 ≈ 1 994 t → flagged", () => {
     const r = run("29000");
     const u95 = Math.hypot(55000 * 0.015, 22000 * 0.02, 40000 * 0.02, 29000 * 0.05, 12000 * 0.05);
-    expect(r.balance_check!.u95_t.toNumber()).toBeCloseTo(u95, 6);
+    expect(r.balance_check!.u95_t!.toNumber()).toBeCloseTo(u95, 6);
     expect(r.balance_check!.within_uncertainty).toBe(false);
     const flag = r.flags.find((f) => f.code === "measured-disagrees-with-balance");
     expect(flag?.severity).toBe("warning");
