@@ -111,13 +111,13 @@ export function reconciliationFlags(streams: StreamReconciliation[], passed: boo
   if (suspects.length) {
     const top = suspects[0].test_statistic!;
     const tied = suspects.filter((s) => s.test_statistic!.minus(top).abs().lte(top.times("1e-20")));
-    const names = tied.map((s) => s.id).join(", ");
-    const why = tied.length > 1 ? " (these meters sit in the same balances only and cannot be told apart)" : "";
+    const pct = (s: StreamReconciliation) => `${s.id} (adjusted ${s.adjustment_pct?.toFixed(2) ?? "?"} %)`;
+    const why = tied.length > 1 ? "; these meters sit in the same balances only and cannot be told apart" : "";
     flags.push({
       code: "reconciliation-suspect-meter",
       severity: "warning",
       stream: tied[0].id,
-      message: `suspect meter: ${names}${why}; measurement test ${top.toFixed(2)} > ${zCrit.toFixed(2)}; reconciled adjustment ${tied[0].adjustment_pct?.toFixed(2) ?? "?"} %`,
+      message: `suspect meter: ${tied.map(pct).join(", ")}; measurement test ${top.toFixed(2)} > ${zCrit.toFixed(2)}${why}`,
     });
   }
   const unchecked = streams.filter((s) => s.redundancy === "non-redundant").map((s) => s.id);
