@@ -41,7 +41,7 @@ export function activityOf(s: StreamFigures, fuel: FuelFactors, flags: Flag[]): 
     return a.unit === "t" ? dec(s.t) : dec(s.t).times(1000);
   }
   const gj = a.basis === "NCV" ? s.gj_lhv : s.gj_hhv;
-  let energyGj: Decimal | null = gj === null ? null : dec(gj);
+  const energyGj: Decimal | null = gj === null ? null : dec(gj);
   if (energyGj === null && fuel.default_energy_per_volume) {
     const vol = VOLUME_MULTIPLES[s.unit];
     const dflt = fuel.default_energy_per_volume;
