@@ -42,6 +42,8 @@ export const streams = pgTable(
     destination: text("destination"),
     fate: text("fate"),
     uncertaintyPct: numeric("uncertainty_pct"),
+    /** Indirect CO2 factor of an import or export: t CO2 per MWh (electricity) or per GJ (steam). */
+    indirectFactor: numeric("indirect_factor"),
     meterTag: text("meter_tag"),
     calibratedOn: date("calibrated_on"),
     sortOrder: integer("sort_order").notNull().default(0),

@@ -1,0 +1,1 @@
+ALTER TABLE "streams" ADD COLUMN "indirect_factor" numeric;
