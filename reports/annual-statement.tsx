@@ -1,0 +1,63 @@
+import { Document, Page, Text } from "@react-pdf/renderer";
+import type { AnnualMonthRow, AnnualStatementModel } from "./model";
+import { CautionsBlock, FlagsBlock, GasTable, IntensityBlock, MethodBlock, RevisionsBlock, SignOffBlock, UncertaintyBlock } from "./parts/blocks";
+import { Footer, RunningHead, TitleBlock } from "./parts/frame";
+import { DataTable, Section } from "./parts/primitives";
+import { styles } from "./parts/theme";
+
+type YearRow = Omit<AnnualMonthRow, "month" | "revision" | "status"> & Partial<Pick<AnnualMonthRow, "month" | "revision" | "status">>;
+
+/** The annual statement: the twelve signed months, their totals and the combined uncertainty. */
+export function AnnualStatement({ model: m }: { model: AnnualStatementModel }) {
+  const h = m.header;
+  const u = m.units;
+  const total: YearRow = { ...m.totals, month: "Year", revision: "", status: "" };
+  return (
+    <Document
+      title={`Annual GHG statement ${h.siteCode} ${h.period} rev ${h.revision}`}
+      author={h.organisation}
+      subject={`Greenhouse-gas statement, ${h.siteName}, ${h.periodLabel}`}
+      creator="Synledger"
+      producer="Synledger"
+    >
+      <Page size="A4" style={styles.page}>
+        <RunningHead h={h} kind="Annual statement" />
+        <Footer verifyAt={m.signOff.verifyAt} />
+        <TitleBlock h={h} title="Annual greenhouse-gas statement" />
+        <MethodBlock n="1" m={m.method} />
+
+        <Section n="2" title="Months of the year">
+          <DataTable<YearRow>
+            columns={[
+              { title: "Month", flex: 1.6, cell: (r) => r.month ?? "" },
+              { title: "Rev.", flex: 0.7, numeric: true, cell: (r) => r.revision ?? "" },
+              { title: `NH3 (${u.ammonia})`, flex: 1.8, numeric: true, cell: (r) => r.ammonia },
+              { title: `Gross CO2 (${u.co2})`, flex: 1.9, numeric: true, cell: (r) => r.grossCo2 },
+              { title: `Deducted (${u.co2})`, flex: 1.8, numeric: true, cell: (r) => r.deducted },
+              { title: `Net CO2 (${u.co2})`, flex: 1.9, numeric: true, cell: (r) => r.netCo2 },
+              { title: `CO2e (${u.co2e})`, flex: 1.9, numeric: true, cell: (r) => r.co2e },
+              { title: `Intensity (${u.intensity})`, flex: 2.2, numeric: true, cell: (r) => r.intensity },
+              { title: "Status", flex: 1.6, cell: (r) => r.status ?? "" },
+            ]}
+            rows={m.months}
+            total={total}
+          />
+        </Section>
+
+        <Section n="3" title="Emissions by gas, year">
+          <GasTable rows={m.emissionsByGas} />
+        </Section>
+
+        <IntensityBlock n="4" rows={m.intensities} />
+        <UncertaintyBlock n="5" rows={m.uncertainty} title="Combined uncertainty (95 % confidence)" />
+        <FlagsBlock n="6" rows={m.flags} />
+        <RevisionsBlock n="7" rows={m.revisions} />
+        <CautionsBlock items={m.cautions} />
+        <SignOffBlock s={m.signOff} />
+        <Text style={[styles.small, styles.muted, { marginTop: 6 }]}>
+          Each month above is also a signed statement of its own, at the revision shown.
+        </Text>
+      </Page>
+    </Document>
+  );
+}
