@@ -49,9 +49,8 @@ export default async function ForbiddenPage({ searchParams }: { searchParams: Pr
       )}
       {actor ? (
         <p className="mt-2 text-ink-soft">
-          You are signed in as {actor.name} with the role{actor.roles.length > 1 ? "s" : ""}{" "}
-          {actor.roles.map((r) => ROLE_LABELS[r]).join(", ")} in {actor.organisationName}. An administrator of your organisation can
-          change your roles.
+          You are signed in to {actor.organisationName} as {actor.name}, with the role{actor.roles.length > 1 ? "s" : ""}{" "}
+          {actor.roles.map((r) => ROLE_LABELS[r]).join(", ")}. An administrator of your organisation can change your roles.
         </p>
       ) : null}
       <p className="mt-5 flex gap-4">

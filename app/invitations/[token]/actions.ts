@@ -63,11 +63,12 @@ export async function acceptInvitation(_prev: AcceptState, formData: FormData): 
   } else {
     const parsed = acceptNewAccountSchema.safeParse(fields);
     const name = String(fields.name ?? "");
-    if (!parsed.success) return { message: "Check the highlighted fields.", errors: firstErrors(parsed.error.issues), name };
-    const problems = passwordProblems(parsed.data.password, preview.email);
-    if (problems.length > 0) {
-      return { message: "Check the highlighted fields.", errors: { password: `Choose a stronger password: ${problems.join("; ")}.` }, name };
-    }
+    const password = String(fields.password ?? "");
+    // Both checks run so every problem shows at once, not one per attempt.
+    const errors = parsed.success ? {} : firstErrors(parsed.error.issues);
+    const problems = password ? passwordProblems(password, preview.email) : [];
+    if (problems.length > 0) errors.password = `Choose a stronger password: ${problems.join("; ")}.`;
+    if (!parsed.success || problems.length > 0) return { message: "Check the highlighted fields.", errors, name };
     newAccount = { name: parsed.data.name, passwordHash: await hashPassword(parsed.data.password) };
   }
 

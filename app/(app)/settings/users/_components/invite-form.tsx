@@ -1,23 +1,33 @@
 "use client";
 
-import { useActionState, useEffect, useRef } from "react";
+import { useActionState } from "react";
 import { FieldError } from "@/components/ui/field-error";
 import { Notice } from "@/components/ui/status";
 import { buttonPrimary, input, label } from "@/components/ui/styles";
 import type { ActionResult } from "@/lib/auth/guard";
+import { isRole, type Role } from "@/lib/auth/roles";
 import { inviteMember } from "../actions";
 import { RoleCheckboxes } from "./role-checkboxes";
 
+type InviteState = (ActionResult & { values?: { email: string; roles: Role[] } }) | null;
+
+/**
+ * React resets a form after its action; on a refusal the typed address and ticked roles come
+ * back through the state (as default values) so nothing has to be entered twice.
+ */
+async function inviteKeepingValues(prev: InviteState, formData: FormData): Promise<InviteState> {
+  const result = await inviteMember(prev, formData);
+  if (result.ok) return result;
+  const roles = formData.getAll("roles").map(String).filter(isRole);
+  return { ...result, values: { email: String(formData.get("email") ?? ""), roles } };
+}
+
 export function InviteForm({ lifetimeHours }: { lifetimeHours: number }) {
-  const [state, action, pending] = useActionState<ActionResult | null, FormData>(inviteMember, null);
-  const formRef = useRef<HTMLFormElement>(null);
-  // After a successful send the form is cleared for the next invitation.
-  useEffect(() => {
-    if (state?.ok) formRef.current?.reset();
-  }, [state]);
+  const [state, action, pending] = useActionState<InviteState, FormData>(inviteKeepingValues, null);
+  const values = state && !state.ok ? state.values : undefined;
   const errors = state && !state.ok ? state.errors : undefined;
   return (
-    <form ref={formRef} action={action} noValidate className="space-y-3">
+    <form action={action} noValidate className="space-y-3">
       {state ? <Notice tone={state.ok ? "ok" : "fault"}>{state.message}</Notice> : null}
       <div className="max-w-sm">
         <label htmlFor="invite-email" className={label}>
@@ -29,6 +39,7 @@ export function InviteForm({ lifetimeHours }: { lifetimeHours: number }) {
           type="email"
           autoComplete="off"
           required
+          defaultValue={values?.email}
           aria-invalid={errors?.email ? true : undefined}
           aria-describedby={errors?.email ? "invite-email-error" : undefined}
           className={`mt-1 ${input}`}
@@ -36,7 +47,7 @@ export function InviteForm({ lifetimeHours }: { lifetimeHours: number }) {
         <FieldError id="invite-email-error" message={errors?.email} />
       </div>
       <div>
-        <RoleCheckboxes idPrefix="invite" legend="Roles they will hold" invalid={!!errors?.roles} describedBy={errors?.roles ? "invite-roles-error" : undefined} />
+        <RoleCheckboxes idPrefix="invite" legend="Roles they will hold" defaultRoles={values?.roles} invalid={!!errors?.roles} describedBy={errors?.roles ? "invite-roles-error" : undefined} />
         <FieldError id="invite-roles-error" message={errors?.roles} />
       </div>
       <div className="flex flex-wrap items-center gap-3">
