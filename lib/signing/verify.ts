@@ -1,0 +1,86 @@
+import type { Db } from "@/db/client";
+import {
+  certificateByFingerprint,
+  statementById,
+  statementBySha256,
+  type CertificateSummary,
+  type StatementScope,
+  type StatementSummary,
+} from "@/db/queries/statements";
+import { sha256Hex } from "./hash";
+import { inspectSignedPdf, type SignatureInspection } from "./inspect";
+import { findStatementRefs } from "./statement-ref";
+
+/**
+ * What a verifier is told about an uploaded PDF:
+ * - issued: byte-for-byte one of the statements we stored (the SHA-256 matches);
+ * - altered: it carries a signature and names one of our statements or was signed with one of
+ *   our certificates, but it is not a file we stored (a byte changed, something appended, or a
+ *   digest that fails);
+ * - unknown: no signature, or nothing in it points at a statement or certificate of ours.
+ *
+ * Every lookup is scoped to the organisation of the person verifying (and to their granted sites
+ * when given). A statement of another organisation is therefore "unknown" to them: the answer
+ * neither confirms nor hints that it exists elsewhere.
+ */
+export type Verification =
+  | { verdict: "issued"; sha256: string; statement: StatementSummary; signature: SignatureInspection | null }
+  | {
+      verdict: "altered";
+      sha256: string;
+      reasons: string[];
+      /** The statement the file claims to be, when it names one of ours. */
+      claimed: StatementSummary | null;
+      certificate: CertificateSummary | null;
+      signature: SignatureInspection;
+    }
+  | { verdict: "unknown"; sha256: string; reason: string; signature: SignatureInspection | null };
+
+export interface VerificationFacts {
+  sha256: string;
+  stored: StatementSummary | null;
+  signature: SignatureInspection | null;
+  claimed: StatementSummary | null;
+  certificate: CertificateSummary | null;
+}
+
+/** The decision alone, from facts already looked up; kept pure so it is tested without a database. */
+export function judge(f: VerificationFacts): Verification {
+  if (f.stored) return { verdict: "issued", sha256: f.sha256, statement: f.stored, signature: f.signature };
+  if (!f.signature) return { verdict: "unknown", sha256: f.sha256, reason: "The file carries no digital signature.", signature: null };
+  if (!f.claimed && !f.certificate) {
+    return {
+      verdict: "unknown",
+      sha256: f.sha256,
+      reason: "The signature was not made with a certificate of this organisation and names none of its statements.",
+      signature: f.signature,
+    };
+  }
+  const s = f.signature;
+  const reasons = ["The file is not byte-for-byte any statement stored for this organisation."];
+  if (!s.digestMatches) reasons.push("The signed bytes do not match the digest in the signature: the content was changed after signing.");
+  if (!s.signatureValid) reasons.push("The signature itself does not verify with its certificate.");
+  if (s.digestMatches && s.signatureValid && !s.coversWholeFile) reasons.push("Bytes were added or changed outside the signed ranges.");
+  if (!f.certificate) reasons.push("The signing certificate is not one of this organisation's certificates.");
+  if (f.claimed && f.certificate && f.claimed.certificateFingerprint !== f.certificate.fingerprintSha256) {
+    reasons.push("The statement it names was signed with a different certificate.");
+  }
+  if (s.problem) reasons.push(s.problem);
+  return { verdict: "altered", sha256: f.sha256, reasons, claimed: f.claimed, certificate: f.certificate, signature: s };
+}
+
+export async function verifyStatementPdf(db: Db, scope: StatementScope, pdf: Buffer): Promise<Verification> {
+  const sha256 = sha256Hex(pdf);
+  const signature = inspectSignedPdf(pdf);
+  const stored = await statementBySha256(db, scope, sha256);
+  if (stored) return judge({ sha256, stored, signature, claimed: null, certificate: null });
+  let claimed: StatementSummary | null = null;
+  for (const id of findStatementRefs(pdf)) {
+    claimed = await statementById(db, scope, id);
+    if (claimed) break;
+  }
+  const certificate = signature?.certificateFingerprint
+    ? await certificateByFingerprint(db, scope.organisationId, signature.certificateFingerprint)
+    : null;
+  return judge({ sha256, stored: null, signature, claimed, certificate });
+}
