@@ -1,0 +1,76 @@
+/**
+ * Builds the plant-month file (format synledger.plant-month/1) from what the database holds for
+ * one site-month. Pure: rows in, JSON out, so the engine, the API export, the PDF and the tests
+ * all see exactly the same document.
+ */
+import { PLANT_MONTH_FORMAT } from "@/lib/balance/schema";
+
+export interface StreamRow {
+  id: string;
+  key: string;
+  kind: string;
+  unit: string;
+  analysisKey: string | null;
+  destination: string | null;
+  fate: string | null;
+  uncertaintyPct: string | null;
+  indirectFactor: string | null;
+  meterTag: string | null;
+  sortOrder: number;
+}
+
+export interface ReadingRow {
+  streamId: string;
+  quantity: string;
+  unit: string;
+  note: string | null;
+}
+
+export interface AnalysisRow {
+  key: string;
+  components: Record<string, string>;
+  note: string | null;
+}
+
+export interface MonthDocumentInput {
+  siteName: string;
+  period: string;
+  method: { emissions: string; factor_set: string; gwp: string };
+  streams: StreamRow[];
+  readings: ReadingRow[];
+  analyses: AnalysisRow[];
+}
+
+/** JSON value of the plant-month file, numbers as strings. Streams without a reading are left out. */
+export function monthDocument(input: MonthDocumentInput): Record<string, unknown> {
+  const byStream = new Map(input.readings.map((r) => [r.streamId, r]));
+  const streams = [...input.streams]
+    .sort((a, b) => a.sortOrder - b.sortOrder || a.key.localeCompare(b.key))
+    .flatMap((s) => {
+      const r = byStream.get(s.id);
+      if (!r) return [];
+      const out: Record<string, unknown> = { id: s.key, kind: s.kind };
+      if (s.analysisKey) out.analysis = s.analysisKey;
+      if (s.fate) out.fate = s.fate;
+      if (s.destination) out.destination = s.destination;
+      out.quantity = r.quantity;
+      out.unit = r.unit;
+      if (s.uncertaintyPct !== null) out.uncertainty_pct = s.uncertaintyPct;
+      if (s.indirectFactor !== null && s.kind === "electricity-import") out.factor_t_per_MWh = s.indirectFactor;
+      if (s.indirectFactor !== null && (s.kind === "steam-import" || s.kind === "steam-export")) out.factor_t_per_GJ = s.indirectFactor;
+      if (s.meterTag) out.meter = s.meterTag;
+      if (r.note) out.note = r.note;
+      return [out];
+    });
+  const analyses = Object.fromEntries(
+    input.analyses.map((a) => [a.key, { components: a.components, ...(a.note ? { note: a.note } : {}) }]),
+  );
+  return {
+    format: PLANT_MONTH_FORMAT,
+    site: input.siteName,
+    month: input.period,
+    analyses,
+    streams,
+    method: input.method,
+  };
+}
