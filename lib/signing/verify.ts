@@ -20,7 +20,7 @@ import { findStatementRefs } from "./statement-ref";
  * - unknown: no signature, or nothing in it points at a statement or certificate of ours.
  *
  * Every lookup is scoped to the organisation of the person verifying (and to their granted sites
- * when given). A statement of another organisation is therefore "unknown" to them: the answer
+ * when given: a statement of a site outside the grant is "unknown" too). A statement of another organisation is therefore "unknown" to them: the answer
  * neither confirms nor hints that it exists elsewhere.
  */
 export type Verification =
@@ -79,8 +79,20 @@ export async function verifyStatementPdf(db: Db, scope: StatementScope, pdf: Buf
     claimed = await statementById(db, scope, id);
     if (claimed) break;
   }
+  if (!claimed && scope.siteIds && (await namesStatementOutsideSites(db, scope, pdf))) {
+    // Certificates belong to the organisation, not to a site: without this, an auditor limited
+    // to some sites would be told "altered" about an intact statement of a site they cannot see.
+    return { verdict: "unknown", sha256, reason: "The file is not a statement of the sites you have access to.", signature };
+  }
   const certificate = signature?.certificateFingerprint
     ? await certificateByFingerprint(db, scope.organisationId, signature.certificateFingerprint)
     : null;
   return judge({ sha256, stored: null, signature, claimed, certificate });
+}
+
+async function namesStatementOutsideSites(db: Db, scope: StatementScope, pdf: Buffer): Promise<boolean> {
+  for (const id of findStatementRefs(pdf)) {
+    if (await statementById(db, { organisationId: scope.organisationId }, id)) return true;
+  }
+  return false;
 }
