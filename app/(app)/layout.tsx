@@ -1,4 +1,5 @@
 import type { ReactNode } from "react";
+import { Providers } from "@/components/providers";
 import { AppHeader } from "@/components/shell/app-header";
 import { CautionLine } from "@/components/ui/caution-line";
 import { previousMonthKey } from "@/components/ui/format";
@@ -17,7 +18,7 @@ export default async function AppLayout({ children }: { children: ReactNode }) {
       </a>
       <AppHeader actor={actor} sites={sites} defaultMonth={previousMonthKey()} />
       <main id="main" className="mx-auto w-full max-w-6xl flex-1 px-5 py-6">
-        {children}
+        <Providers>{children}</Providers>
       </main>
       <footer className="border-t border-rule px-5 py-4">
         <CautionLine className="mx-auto max-w-6xl" />
