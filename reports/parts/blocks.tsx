@@ -146,7 +146,7 @@ export function SignOffBlock({ s }: { s: SignOff }) {
               [
                 "SHA-256 fingerprint",
                 // Two lines of 32 hex digits: a 64-digit word would overflow the column.
-                <Text style={{ fontFamily: "Plex Mono", fontSize: 7 }}>
+                <Text key="fingerprint" style={{ fontFamily: "Plex Mono", fontSize: 7 }}>
                   {s.certificateFingerprint.slice(0, 32)}
                   {"\n"}
                   {s.certificateFingerprint.slice(32)}
