@@ -1,10 +1,12 @@
 // calculate(): one plant-month document in, every figure of the month out (typed, Decimal).
 import { type BalanceOptions, type ElementBalances, balanceFlags, elementBalances } from "./balances";
 import { Dec, dec } from "./decimal";
+import { CalculationInputError } from "./errors";
 import { type FeedFigures, feedFigures } from "./feed";
 import { type GasProperties, calorificValues } from "./gas-properties";
 import { type PlantReconciliation, reconcilePlant } from "./reconcile-plant";
 import { type EmissionsPart, buildEmissionsInput, emissionsPart } from "./result";
+import type { FactorSetRegistry } from "../emissions/registry";
 import type { PlantMonth } from "./schema";
 import { type StreamFlow, analysesOf, streamFlow } from "./streams";
 import type { AnalysisFigures, Flag, StreamFigures } from "./types";
@@ -15,6 +17,8 @@ export interface CalculateOptions extends BalanceOptions {
   reconcile?: boolean;
   /** Confidence of the reconciliation tests (default 0.95). */
   confidence?: Dec;
+  /** Factor sets the month may name (default: the built-in sets); an organisation adds its own. */
+  factorSets?: FactorSetRegistry;
 }
 
 export interface AnalysisResult extends AnalysisFigures {
@@ -38,12 +42,7 @@ export interface CalculationResult {
   flags: Flag[];
 }
 
-/** A stream that passed the schema but cannot be converted (e.g. GJ on a gas with no calorific value). */
-export class CalculationInputError extends Error {
-  constructor(readonly path: string, readonly reason: string) {
-    super(`${path}: ${reason}`);
-  }
-}
+export { CalculationInputError } from "./errors";
 
 export function analysisFigures(id: string, gas: GasProperties): AnalysisResult {
   const cv = calorificValues(gas, "15C", "15C");
@@ -85,7 +84,7 @@ export function calculate(doc: PlantMonth, options: CalculateOptions = {}): Calc
     feed,
     reconciliation,
   };
-  const emissions = emissionsPart(buildEmissionsInput(doc, partial));
+  const emissions = emissionsPart(buildEmissionsInput(doc, partial), options.factorSets);
   return {
     ...partial,
     emissions,

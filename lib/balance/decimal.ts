@@ -30,3 +30,10 @@ export function fmt(value: Dec | null | undefined, places?: number): string | nu
   const text = places === undefined ? v.toFixed() : v.toFixed(places);
   return text === "-0" ? "0" : text.replace(/^-0(\.0+)?$/, (m) => m.slice(1));
 }
+
+/** Decimal → JSON string: 15 significant digits, no exponent; rounding dust below 1e-25 prints as 0. */
+export function num(x: Dec | null | undefined): string | null {
+  if (x === null || x === undefined) return null;
+  if (x.abs().lt("1e-25")) return "0";
+  return x.toSignificantDigits(15).toFixed();
+}

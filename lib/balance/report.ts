@@ -1,15 +1,11 @@
 // Plain-text report of one calculated month: aligned tables, units in every header.
 import type { CalculationResult } from "./calculate";
-import type { Dec } from "./decimal";
+import { formatEmissions } from "./report-emissions";
+import { fx, table } from "./text-table";
 
-const f = (x: Dec | null | undefined, places: number): string => (x === null || x === undefined ? "—" : x.toFixed(places));
+const f = fx;
 
-/** Right-aligns every column but the first; the header row is underlined. */
-export function table(header: string[], rows: string[][]): string {
-  const widths = header.map((h, j) => Math.max(h.length, ...rows.map((r) => r[j].length)));
-  const line = (r: string[]) => r.map((c, j) => (j === 0 ? c.padEnd(widths[j]) : c.padStart(widths[j]))).join("  ").trimEnd();
-  return [line(header), widths.map((w) => "-".repeat(w)).join("  "), ...rows.map(line)].join("\n");
-}
+export { table };
 
 export function formatReport(r: CalculationResult): string {
   const out: string[] = [`Synledger balance — ${r.site}, ${r.month}`, ""];
@@ -42,7 +38,6 @@ export function formatReport(r: CalculationResult): string {
         ["feed", f(r.feed.feed_gj_lhv_per_t_nh3, 3), "GJ LHV/t NH3"],
         ["theoretical minimum feed", f(r.feed.theoretical_min_gj_lhv_per_t_nh3, 3), "GJ LHV/t NH3"],
         ["feed efficiency", f(r.feed.feed_efficiency_pct, 2), "%"],
-        ["CO2e intensity", f(r.emissions.intensity.co2e_t_per_t_nh3, 4), "t CO2e/t NH3"],
       ],
     ),
     "",
@@ -61,6 +56,7 @@ export function formatReport(r: CalculationResult): string {
       "",
     );
   }
+  out.push(...formatEmissions(r.emissions.detail));
   if (r.flags.length) {
     out.push("Flags");
     for (const fl of r.flags) out.push(`  [${fl.severity}] ${fl.code}: ${fl.message}`);

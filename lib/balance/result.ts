@@ -1,30 +1,51 @@
 // The result document `synledger.result/1` (stable keys, numbers as strings), the
 // EmissionsInput handed to lib/emissions, and the single place where the emissions part
 // joins the result.
+import { EmissionsInputError, computeEmissions } from "../emissions/compute";
+import { type FactorSetRegistry, defaultRegistry } from "../emissions/registry";
+import type { EmissionsResult } from "../emissions/result";
 import type { CalculationResult } from "./calculate";
-import { Dec } from "./decimal";
+import { Dec, num } from "./decimal";
+import { CalculationInputError } from "./errors";
+import { emissionsDocumentPart } from "./result-emissions";
 import type { PlantMonth } from "./schema";
 import type { AnalysisFigures, EmissionsInput, Flag } from "./types";
 
 export const RESULT_FORMAT = "synledger.result/1";
 
 export interface EmissionsPart {
-  emissions: { co2_t: Dec | null; ch4_t: Dec | null; n2o_t: Dec | null; co2e_t: Dec | null; transferred_co2_t: Dec | null };
+  emissions: { co2_t: Dec; ch4_t: Dec; n2o_t: Dec; co2e_t: Dec; transferred_co2_t: Dec; net_co2e_t: Dec };
   intensity: { co2e_t_per_t_nh3: Dec | null };
   flags: Flag[];
+  /** Everything lib/emissions computed for the month (by stream, by gas, transfers, uncertainty, …). */
+  detail: EmissionsResult;
+  /** The input it was computed from: the annual roll-up needs both. */
+  input: EmissionsInput;
 }
 
 /**
- * THE integration point with lib/emissions: today it returns nulls and an info flag. When
- * lib/emissions lands, this body becomes a call to computeEmissions(input) mapped onto
- * EmissionsPart — nothing else in lib/balance needs to change.
+ * THE integration point with lib/emissions. The factor set is checked here rather than in the
+ * schema because an organisation may register its own sets: only the registry in use knows
+ * which names are valid. Any refusal becomes an input error on `method.*`, so the CLI and the
+ * API answer it like any other bad field.
  */
-export function emissionsPart(input: EmissionsInput): EmissionsPart {
-  void input;
+export function emissionsPart(input: EmissionsInput, registry: FactorSetRegistry = defaultRegistry): EmissionsPart {
+  if (!registry.get(input.method.factor_set))
+    throw new CalculationInputError("method.factor_set", `unknown factor set "${input.method.factor_set}" (known: ${registry.ids().join(", ")})`);
+  let detail: EmissionsResult;
+  try {
+    detail = computeEmissions(input, registry);
+  } catch (e) {
+    if (e instanceof EmissionsInputError) throw new CalculationInputError("method", e.message);
+    throw e;
+  }
+  const e = detail.emissions;
   return {
-    emissions: { co2_t: null, ch4_t: null, n2o_t: null, co2e_t: null, transferred_co2_t: null },
-    intensity: { co2e_t_per_t_nh3: null },
-    flags: [{ code: "emissions-not-computed", severity: "info", message: "emissions are computed by lib/emissions, not yet connected" }],
+    emissions: { co2_t: e.co2_t, ch4_t: e.ch4_t, n2o_t: e.n2o_t, co2e_t: e.co2e_t, transferred_co2_t: e.transferred_co2_t, net_co2e_t: e.net_co2e_t },
+    intensity: { co2e_t_per_t_nh3: detail.intensity.co2e_t_per_t_nh3 },
+    flags: detail.flags.map((f) => ({ code: f.code, severity: f.severity, message: f.message })),
+    detail,
+    input,
   };
 }
 
@@ -57,12 +78,7 @@ export function buildEmissionsInput(
   };
 }
 
-/** Decimal → JSON string: 15 significant digits, no exponent; rounding dust below 1e-25 prints as 0. */
-export function num(x: Dec | null | undefined): string | null {
-  if (x === null || x === undefined) return null;
-  if (x.abs().lt("1e-25")) return "0";
-  return x.toSignificantDigits(15).toFixed();
-}
+export { num } from "./decimal";
 
 export function toResultDocument(r: CalculationResult) {
   const b = r.balances;
@@ -96,8 +112,7 @@ export function toResultDocument(r: CalculationResult) {
       theoretical_min_gj_lhv_per_t_nh3: num(r.feed.theoretical_min_gj_lhv_per_t_nh3),
       feed_efficiency_pct: num(r.feed.feed_efficiency_pct),
     },
-    emissions: Object.fromEntries(Object.entries(r.emissions.emissions).map(([k, v]) => [k, num(v)])),
-    intensity: { co2e_t_per_t_nh3: num(r.emissions.intensity.co2e_t_per_t_nh3), gj_lhv_per_t_nh3: num(r.feed.gj_lhv_per_t_nh3) },
+    ...emissionsDocumentPart(r.emissions.detail, r.feed.gj_lhv_per_t_nh3),
     reconciliation: rec && {
       constraints: rec.constraints,
       streams: rec.streams.map((s) => ({

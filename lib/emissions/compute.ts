@@ -1,3 +1,4 @@
+import { citationsFor } from "./citations";
 import { ZERO, type Decimal } from "./decimal";
 import type { FactorSet } from "./factor-set-schema";
 import { gwpSet } from "./gwp";
@@ -118,6 +119,7 @@ export function computeEmissions(input: EmissionsInput, registry: FactorSetRegis
     balance_check: outcome.balance_check,
     uncertainty,
     tiers: assessTiers(input, set, registry.get("eu-mrr")),
+    citations: citationsFor(input, set, gwp, registry.get("eu-mrr")),
     flags,
   };
 }

@@ -2,6 +2,7 @@
 export type { StreamKind, StreamFigures, EmissionsInput, AnalysisFigures, EmissionsMethod, GwpId, Destination, Flag } from "./types";
 export { D, dec, K95 } from "./decimal";
 export { computeEmissions, EmissionsInputError } from "./compute";
+export { citationsFor, type Citation } from "./citations";
 export type { EmissionsResult, GasTotal } from "./result";
 export type { StreamEmission, BalanceCheck } from "./model";
 export type { IntensityFigures, BenchmarkComparison, TheoreticalMinimum } from "./intensity";

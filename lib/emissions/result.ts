@@ -1,3 +1,4 @@
+import type { Citation } from "./citations";
 import type { Decimal } from "./decimal";
 import type { BenchmarkComparison, IntensityFigures, TheoreticalMinimum } from "./intensity";
 import type { BalanceCheck, StreamEmission } from "./model";
@@ -33,5 +34,7 @@ export interface EmissionsResult {
   /** co2: of emissions.co2_t (gross); net_co2: of co2.net_t (deducted exports with their meters). */
   uncertainty: { co2: UncertaintyFigures; net_co2: UncertaintyFigures };
   tiers: MeterTier[];
+  /** The cited values this month's figures rest on, each marked when taken from memory. */
+  citations: Citation[];
   flags: Flag[];
 }

@@ -30,7 +30,7 @@ export function carbonMassBalance(input: EmissionsInput, set: FactorSet): Method
     const co2 = dec(s.carbon_t).times(f);
     gross = gross.plus(co2);
     rows.push({ id: s.id, kind: s.kind, co2_t: co2, ch4_t: ZERO, n2o_t: ZERO, co2e_t: ZERO,
-      basis: `carbon ${dec(s.carbon_t).toString()} t × ${set.stoichiometric_factor.numerator}/${set.stoichiometric_factor.denominator}`,
+      basis: `carbon ${dec(s.carbon_t).toSignificantDigits(10).toString()} t × ${set.stoichiometric_factor.numerator}/${set.stoichiometric_factor.denominator}`,
       co2_factor: { value: f, unit: "t CO2/t C", origin: "factor-set", source: set.stoichiometric_factor.source } });
     terms.push({ value_t: co2, stream_id: s.id, meter_rel_std: relStd(s.uncertainty_pct, K95) });
   }

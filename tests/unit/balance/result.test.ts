@@ -30,7 +30,7 @@ describe("StreamFigures (docs/engine-contract.md) for the paper plant", () => {
   });
 });
 
-describe("EmissionsInput and the emissions placeholder", () => {
+describe("EmissionsInput and the emissions part", () => {
   const input = buildEmissionsInput(doc, result);
   it("carries month, method, ammonia tonnes and every stream as measured", () => {
     expect(input.month).toBe("2026-01");
@@ -40,10 +40,19 @@ describe("EmissionsInput and the emissions placeholder", () => {
     expect(input.analyses.methane.molar_mass.toFixed()).toBe("16.043");
     expect(input.theoretical_min_gj_lhv_per_t_nh3).toBeDefined();
   });
-  it("emissionsPart returns nulls and the emissions-not-computed info flag (until lib/emissions lands)", () => {
+  it("emissionsPart joins lib/emissions: CO2 = (69 037 + 10 000) kmol C × 12.011 / 1000 × 44/12 (IPCC 2006 Eq 3.1, from memory; hand calc)", () => {
     const part = emissionsPart(input);
-    expect(Object.values(part.emissions).every((v) => v === null)).toBe(true);
-    expect(part.flags.map((f) => [f.code, f.severity])).toEqual([["emissions-not-computed", "info"]]);
+    // 949.313407 t C × 11/3 = 3 480.815825667 t
+    expect(part.emissions.co2_t.toDecimalPlaces(9).toFixed()).toBe("3480.815825667");
+    // fuel 10 000 kmol × 802.69 MJ/kmol (ISO 6976:2016 methane net, 15 °C) = 8.0269 TJ × 1 kg CH4 and 0.1 kg N2O per TJ (IPCC Vol 2 Tables 2.2/2.3, from memory)
+    expect(part.emissions.ch4_t.toFixed()).toBe("0.0080269");
+    expect(part.emissions.n2o_t.toFixed()).toBe("0.00080269");
+    // urea CO2 is deducted under IPCC 2006 (R in Eq 3.1, from memory): 3 481.253291717 − 3 038.249333
+    expect(part.emissions.net_co2e_t.toDecimalPlaces(9).toFixed()).toBe("443.003958717");
+    expect(part.flags.some((f) => f.code === "emissions-not-computed")).toBe(false);
+  });
+  it("an unknown factor set is an input error on method.factor_set", () => {
+    expect(() => emissionsPart({ ...input, method: { ...input.method, factor_set: "nope" } })).toThrow(/^method\.factor_set: unknown factor set "nope"/);
   });
 });
 
@@ -53,7 +62,8 @@ describe("result document synledger.result/1", () => {
     expect(out.balances.hydrogen.available_kmol).toBe("234252");
     expect(out.streams[0].kmol).toBe("69037");
     expect(out.intensity.gj_lhv_per_t_nh3).toBe("23.8531699545251");
-    expect(out.emissions.co2e_t).toBeNull();
+    // 3 480.815825667 + 0.0080269 × 28 + 0.00080269 × 265 (AR5 GWP, hand calc)
+    expect(out.emissions.co2e_t).toBe("3481.25329171667");
     expect(out.reconciliation!.passed).toBe(true);
   });
   it("num: 15 significant digits, no exponent, dust as 0", () => {
