@@ -8,6 +8,8 @@ export default defineConfig({
     alias: { "@": root, "server-only": `${root}tests/support/server-only.ts` },
   },
   test: {
+    // next-auth imports "next/server" without an extension, which only a bundler resolves.
+    server: { deps: { inline: ["next-auth", "@auth/core"] } },
     projects: [
       {
         extends: true,

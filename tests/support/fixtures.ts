@@ -19,9 +19,9 @@ export interface FixtureOrg {
   id: string;
   name: string;
   siteId: string;
-  /** One member per role, keyed by role. */
-  members: Record<Role, FixtureUser>;
-  session(role: Role): Session;
+  /** One member per role, keyed by role, and `all`: one member holding every role. */
+  members: Record<Role | "all", FixtureUser>;
+  session(role: Role | "all"): Session;
 }
 
 /** A fresh organisation with one site and one member per role; unique names so runs never clash. */
@@ -36,19 +36,20 @@ export async function createOrg(db: Db, label = "Org"): Promise<FixtureOrg> {
     .insert(sites)
     .values({ organisationId: org.id, name: `${label} works ${tag}`, code: `w${tag}` })
     .returning();
-  const members = {} as Record<Role, FixtureUser>;
-  for (const role of ROLES) {
+  const members = {} as Record<Role | "all", FixtureUser>;
+  for (const role of [...ROLES, "all" as const]) {
+    const roles: Role[] = role === "all" ? [...ROLES] : [role];
     const email = `${role}.${tag}@fixture.example`;
     const [u] = await db.insert(users).values({ email, name: `${role} ${tag}`, passwordHash: hash }).returning();
-    await db.insert(memberships).values({ userId: u.id, organisationId: org.id, roles: [role] });
-    members[role] = { id: u.id, email, name: u.name, roles: [role] };
+    await db.insert(memberships).values({ userId: u.id, organisationId: org.id, roles });
+    members[role] = { id: u.id, email, name: u.name, roles };
   }
   return {
     id: org.id,
     name: org.name,
     siteId: site.id,
     members,
-    session(role: Role): Session {
+    session(role: Role | "all"): Session {
       const m = members[role];
       return {
         user: { id: m.id, email: m.email, name: m.name, organisationId: org.id, organisationName: org.name, roles: m.roles },
