@@ -1,15 +1,18 @@
 // CLI: npm run balance -- FILE.json [--json] [--tolerance PCT] [--no-reconcile]
-// Invalid input: exit 2, nothing on stdout, the JSON path and the reason on stderr.
-// The argument parser is a small table so `--year FILE1 FILE2 ...` can be added as a mode later.
+//      npm run balance -- --year FILE1.json FILE2.json … [--json]
+// Invalid input: exit 2, nothing on stdout, the file, the JSON path and the reason on stderr.
+// Year mode reads every file before printing anything, so one bad month never yields a partial total.
 import { readFileSync } from "node:fs";
 import { CalculationInputError, calculate } from "./calculate";
 import { Dec } from "./decimal";
 import { formatReport } from "./report";
+import { formatYearReport } from "./report-year";
 import { toResultDocument } from "./result";
 import { describeIssues, parsePlantMonthText } from "./schema";
+import { type LoadedMonth, rollUp, toYearDocument, yearInputProblem } from "./year";
 
 export interface CliArgs {
-  mode: "month"; // "year" to come: several files rolled up
+  mode: "month" | "year";
   files: string[];
   json: boolean;
   tolerancePct: Dec | null;
@@ -18,13 +21,17 @@ export interface CliArgs {
 
 export class UsageError extends Error {}
 
-export const USAGE = "usage: npm run balance -- FILE.json [--json] [--tolerance PCT] [--no-reconcile]";
+export const USAGE = [
+  "usage: npm run balance -- FILE.json [--json] [--tolerance PCT] [--no-reconcile]",
+  "       npm run balance -- --year FILE1.json FILE2.json ... [--json] [--tolerance PCT] [--no-reconcile]",
+].join("\n");
 
 export function parseArgs(argv: string[]): CliArgs {
   const args: CliArgs = { mode: "month", files: [], json: false, tolerancePct: null, reconcile: true };
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i];
     if (a === "--json") args.json = true;
+    else if (a === "--year") args.mode = "year";
     else if (a === "--no-reconcile") args.reconcile = false;
     else if (a === "--tolerance") {
       const v = argv[++i];
@@ -33,7 +40,8 @@ export function parseArgs(argv: string[]): CliArgs {
     } else if (a.startsWith("--")) throw new UsageError(`unknown option ${a}`);
     else args.files.push(a);
   }
-  if (args.files.length !== 1) throw new UsageError("give exactly one plant-month file");
+  if (args.mode === "month" && args.files.length !== 1) throw new UsageError("give exactly one plant-month file (or --year and several)");
+  if (args.mode === "year" && args.files.length === 0) throw new UsageError("--year needs the plant-month files of one site and year");
   return args;
 }
 
@@ -43,35 +51,58 @@ export interface CliOutcome {
   stderr: string;
 }
 
-/** The whole CLI as a function (tests call it directly; main() only does the I/O). */
-export function runCli(argv: string[], read: (file: string) => string = (p) => readFileSync(p, "utf8")): CliOutcome {
-  let args: CliArgs;
-  try {
-    args = parseArgs(argv);
-  } catch (e) {
-    if (e instanceof UsageError) return { code: 2, stdout: "", stderr: `${e.message}\n${USAGE}\n` };
-    throw e;
-  }
-  const file = args.files[0];
+type Read = (file: string) => string;
+const fail = (stderr: string): CliOutcome => ({ code: 2, stdout: "", stderr });
+
+/** Reads, validates and calculates one file; any problem comes back as the stderr text naming the file. */
+export function loadMonth(file: string, args: CliArgs, read: Read): LoadedMonth | { error: string } {
   let text: string;
   try {
     text = read(file);
   } catch (e) {
-    return { code: 2, stdout: "", stderr: `${file}: cannot read file (${(e as Error).message})\n` };
+    return { error: `${file}: cannot read file (${(e as Error).message})\n` };
   }
   const parsed = parsePlantMonthText(text);
-  if (!parsed.ok) return { code: 2, stdout: "", stderr: `${file}: invalid plant-month document\n${describeIssues(parsed.issues)}\n` };
+  if (!parsed.ok) return { error: `${file}: invalid plant-month document\n${describeIssues(parsed.issues)}\n` };
   try {
     const result = calculate(parsed.doc, {
       reconcile: args.reconcile,
       ...(args.tolerancePct ? { closureTolerancePct: args.tolerancePct } : {}),
     });
-    const stdout = args.json ? JSON.stringify(toResultDocument(result), null, 2) + "\n" : formatReport(result);
-    return { code: 0, stdout, stderr: "" };
+    return { file, doc: parsed.doc, result };
   } catch (e) {
-    if (e instanceof CalculationInputError) return { code: 2, stdout: "", stderr: `${file}: invalid plant-month document\n${e.message}\n` };
+    if (e instanceof CalculationInputError) return { error: `${file}: invalid plant-month document\n${e.message}\n` };
     throw e;
   }
+}
+
+function runYear(args: CliArgs, read: Read): CliOutcome {
+  const months: LoadedMonth[] = [];
+  for (const file of args.files) {
+    const m = loadMonth(file, args, read);
+    if ("error" in m) return fail(m.error);
+    months.push(m);
+  }
+  const problem = yearInputProblem(months);
+  if (problem) return fail(`${problem.file}: cannot be rolled up with the other files\n${problem.path}: ${problem.reason}\n`);
+  const y = rollUp(months);
+  return { code: 0, stdout: args.json ? JSON.stringify(toYearDocument(y), null, 2) + "\n" : formatYearReport(y), stderr: "" };
+}
+
+/** The whole CLI as a function (tests call it directly; main() only does the I/O). */
+export function runCli(argv: string[], read: Read = (p) => readFileSync(p, "utf8")): CliOutcome {
+  let args: CliArgs;
+  try {
+    args = parseArgs(argv);
+  } catch (e) {
+    if (e instanceof UsageError) return fail(`${e.message}\n${USAGE}\n`);
+    throw e;
+  }
+  if (args.mode === "year") return runYear(args, read);
+  const m = loadMonth(args.files[0], args, read);
+  if ("error" in m) return fail(m.error);
+  const stdout = args.json ? JSON.stringify(toResultDocument(m.result), null, 2) + "\n" : formatReport(m.result);
+  return { code: 0, stdout, stderr: "" };
 }
 
 const isMain = process.argv[1] && /cli\.ts$/.test(process.argv[1]);

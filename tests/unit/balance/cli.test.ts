@@ -66,8 +66,11 @@ describe("CLI: valid input", () => {
 describe("argument parser and runCli", () => {
   it("parses options and rejects unknown ones", () => {
     expect(parseArgs(["a.json", "--json", "--tolerance", "2.5"]).tolerancePct?.toFixed()).toBe("2.5");
-    expect(() => parseArgs(["--year", "a.json"])).toThrow(/unknown option/);
+    expect(() => parseArgs(["--month", "a.json"])).toThrow(/unknown option/);
     expect(() => parseArgs([])).toThrow(/exactly one/);
+    expect(() => parseArgs(["a.json", "b.json"])).toThrow(/exactly one/);
+    expect(parseArgs(["--year", "a.json", "b.json", "--json"])).toMatchObject({ mode: "year", files: ["a.json", "b.json"], json: true });
+    expect(() => parseArgs(["--year"])).toThrow(/--year needs/);
   });
   it("runCli reports usage and unreadable files with exit 2", () => {
     expect(runCli([]).stderr).toContain(USAGE);

@@ -1,0 +1,92 @@
+// Annual roll-up of several plant-month files of one site: each month is calculated as the
+// month CLI would, then lib/emissions' rollUpYear adds them with the annual uncertainty model
+// (factor part correlated across months, meter part independent).
+import { rollUpYear, type YearResult } from "../emissions/year";
+import type { CalculationResult } from "./calculate";
+import { num } from "./decimal";
+import { uncertaintyJson } from "./result-emissions";
+import type { PlantMonth } from "./schema";
+import type { Flag } from "./types";
+
+export interface LoadedMonth {
+  file: string;
+  doc: PlantMonth;
+  result: CalculationResult;
+}
+
+export const YEAR_RESULT_FORMAT = "synledger.year-result/1";
+
+export interface YearRollUp {
+  site: string;
+  files: LoadedMonth[];
+  year: YearResult;
+  /** Month warnings and errors carried up, prefixed with their month so none is lost in the total. */
+  flags: Flag[];
+}
+
+/** Why a set of files cannot make one year: the offending file and the JSON path, or null when they can. */
+export function yearInputProblem(months: LoadedMonth[]): { file: string; path: string; reason: string } | null {
+  const first = months[0];
+  const year = first.doc.month.slice(0, 4);
+  const seen = new Map<string, string>();
+  for (const m of months) {
+    if (m.doc.site !== first.doc.site)
+      return { file: m.file, path: "site", reason: `site "${m.doc.site}" differs from "${first.doc.site}" in ${first.file}; a year rolls up one site` };
+    if (m.doc.month.slice(0, 4) !== year)
+      return { file: m.file, path: "month", reason: `${m.doc.month} is not in ${year}, the year of ${first.file}` };
+    const other = seen.get(m.doc.month);
+    if (other !== undefined) return { file: m.file, path: "month", reason: `${m.doc.month} is given twice (also ${other})` };
+    seen.set(m.doc.month, m.file);
+  }
+  return null;
+}
+
+export function rollUp(months: LoadedMonth[]): YearRollUp {
+  const sorted = [...months].sort((a, b) => a.doc.month.localeCompare(b.doc.month));
+  const year = rollUpYear(sorted.map((m) => ({ month: m.doc.month, input: m.result.emissions.input, result: m.result.emissions.detail })));
+  const monthFlags = sorted.flatMap((m) =>
+    m.result.flags.filter((f) => f.severity !== "info").map((f) => ({ code: f.code, severity: f.severity, message: `${m.doc.month}: ${f.message}` })),
+  );
+  return { site: sorted[0].doc.site, files: sorted, year, flags: [...year.flags, ...monthFlags] };
+}
+
+export function toYearDocument(y: YearRollUp) {
+  const r = y.year;
+  const e = r.emissions;
+  const method = y.files[0].result.emissions.detail;
+  return {
+    format: YEAR_RESULT_FORMAT,
+    site: y.site,
+    year: r.year,
+    months_included: r.months_included,
+    months_missing: r.months_missing,
+    months: y.files.map((m) => {
+      const d = m.result.emissions.detail;
+      return {
+        month: m.doc.month, file: m.file, ammonia_t: num(d.intensity.ammonia_t), co2_t: num(d.emissions.co2_t),
+        co2e_t: num(d.emissions.co2e_t), net_co2e_t: num(d.emissions.net_co2e_t), co2e_t_per_t_nh3: num(d.intensity.co2e_t_per_t_nh3),
+        gj_lhv_per_t_nh3: num(d.intensity.gj_lhv_per_t_nh3), carbon_closure_pct: num(m.result.balances.carbon.closure_pct),
+        u95_co2_t: num(d.uncertainty.co2.u95_t),
+      };
+    }),
+    method: { emissions: method.method, factor_set: method.factor_set, gwp: method.gwp.id },
+    ammonia_t: num(r.ammonia_t),
+    emissions: {
+      co2_t: num(e.co2_t), ch4_t: num(e.ch4_t), n2o_t: num(e.n2o_t), co2e_t: num(e.co2e_t),
+      transferred_co2_t: num(e.transferred_co2_t), net_co2e_t: num(e.net_co2e_t),
+      gross_co2_t: num(r.co2.gross_t), deductible_co2_t: num(r.co2.deductible_t), net_co2_t: num(r.co2.net_t),
+    },
+    transfers_by_destination: Object.fromEntries(Object.entries(r.transfers_by_destination).map(([k, v]) => [k, num(v)])),
+    intensity: {
+      co2e_t_per_t_nh3: num(r.intensity.co2e_t_per_t_nh3),
+      net_co2e_t_per_t_nh3: num(r.intensity.net_co2e_t_per_t_nh3),
+      gj_lhv_per_t_nh3: num(r.intensity.gj_lhv_per_t_nh3),
+    },
+    uncertainty: {
+      model: "factor part correlated across months (added linearly per factor); meter part independent (added in quadrature); 95 %, k = 1.96",
+      co2: uncertaintyJson(r.uncertainty.co2),
+      net_co2: uncertaintyJson(r.uncertainty.net_co2),
+    },
+    flags: y.flags,
+  };
+}
