@@ -1,0 +1,66 @@
+import { and, asc, eq, isNull, like } from "drizzle-orm";
+import type { Db, Tx } from "../client";
+import { months, sites, streams } from "../schema";
+
+/** Fields of a site the API shows; never anything of another organisation. */
+export const siteFields = {
+  id: sites.id,
+  name: sites.name,
+  code: sites.code,
+  meteringReference: sites.meteringReference,
+  closureTolerancePct: sites.closureTolerancePct,
+  emissionsMethod: sites.emissionsMethod,
+  factorSet: sites.factorSet,
+  gwp: sites.gwp,
+  archivedAt: sites.archivedAt,
+};
+
+/** The organisation's active sites with their settings, by name. */
+export async function listSiteDetails(db: Db | Tx, organisationId: string) {
+  return db
+    .select(siteFields)
+    .from(sites)
+    .where(and(eq(sites.organisationId, organisationId), isNull(sites.archivedAt)))
+    .orderBy(asc(sites.name));
+}
+
+/** Streams of a site already checked to be the caller's, archived ones included (old months use them). */
+export async function listStreamsOfSite(db: Db | Tx, siteId: string) {
+  return db
+    .select({
+      key: streams.key,
+      name: streams.name,
+      kind: streams.kind,
+      unit: streams.unit,
+      analysisKey: streams.analysisKey,
+      destination: streams.destination,
+      fate: streams.fate,
+      uncertaintyPct: streams.uncertaintyPct,
+      indirectFactor: streams.indirectFactor,
+      meterTag: streams.meterTag,
+      calibratedOn: streams.calibratedOn,
+      archivedAt: streams.archivedAt,
+    })
+    .from(streams)
+    .where(eq(streams.siteId, siteId))
+    .orderBy(asc(streams.sortOrder), asc(streams.key));
+}
+
+/** Month records of one site in one calendar year, oldest first. */
+export async function listMonthsOfSite(db: Db | Tx, siteId: string, year: string) {
+  return db
+    .select({ period: months.period, state: months.state, revision: months.revision, version: months.version, updatedAt: months.updatedAt })
+    .from(months)
+    .where(and(eq(months.siteId, siteId), like(months.period, `${year}-%`)))
+    .orderBy(asc(months.period));
+}
+
+/** The version an editor must name to save the month: 0 while nobody has started it. */
+export async function currentMonthVersion(db: Db | Tx, siteId: string, period: string): Promise<number> {
+  const [row] = await db
+    .select({ version: months.version })
+    .from(months)
+    .where(and(eq(months.siteId, siteId), eq(months.period, period)))
+    .limit(1);
+  return row?.version ?? 0;
+}

@@ -1,0 +1,111 @@
+import { body, json, params, ref, responses, schemas } from "./openapi-parts";
+
+const site = [params.siteId];
+const month = [params.siteId, params.month];
+const asPerson = [{ session: [] }];
+const personOrToken = [{ session: [] }, { siteToken: [] }];
+const plantFile = { required: true, content: { "application/json": { schema: ref("PlantMonth") } } };
+
+/**
+ * GET /api/v1/openapi.json. Hand-written and short: it documents what each route accepts and
+ * answers; a test checks that every route file under app/api/v1 has a path here.
+ */
+export const openApiDocument = {
+  openapi: "3.1.0",
+  info: {
+    title: "Synledger API",
+    version: "1",
+    description:
+      "Monthly figures of ammonia plants: sites, streams, readings, gas analyses, engine results, plant-month files and the audit trail. " +
+      "Every error is { error: { code, message, issues?: [{ path, message }] } }. Engineering numbers are decimal strings. " +
+      "A person's session cookie may call every operation their role allows. A site API token (Authorization: Bearer syl_…) may only write readings of its own site and read that site's streams.",
+  },
+  servers: [{ url: "/" }],
+  security: asPerson,
+  components: {
+    securitySchemes: {
+      session: { type: "apiKey", in: "cookie", name: "authjs.session-token", description: "set by signing in to the web app" },
+      siteToken: { type: "http", scheme: "bearer", description: "per-site API token made by an administrator (Settings → API tokens)" },
+    },
+    schemas,
+  },
+  paths: {
+    "/api/v1/sites": {
+      get: { summary: "Active sites of your organisation", responses: responses(json({ type: "object", properties: { sites: { type: "array", items: ref("Site") } } }), ["401", "403"]) },
+    },
+    "/api/v1/sites/{siteId}": {
+      get: { summary: "One site and its settings", parameters: site, responses: responses(json({ type: "object", properties: { site: ref("Site") } }), ["401", "403", "404"]) },
+    },
+    "/api/v1/sites/{siteId}/streams": {
+      get: { summary: "Metered streams of the site (site tokens may read their own)", security: personOrToken, parameters: site, responses: responses(json({ type: "object", properties: { streams: { type: "array", items: ref("Stream") } } }), ["401", "403", "404"]) },
+    },
+    "/api/v1/sites/{siteId}/months": {
+      get: {
+        summary: "Months on record in one year, with state, revision and version",
+        parameters: [...site, { name: "year", in: "query", required: false, description: "four-digit year; default the current one", schema: { type: "string", pattern: "^\\d{4}$" } }],
+        responses: responses(json({ type: "object", properties: { months: { type: "array", items: { type: "object", properties: { month: { type: "string" }, state: ref("MonthState"), revision: { type: "integer" }, version: { type: "integer" } } } } } }), ["400", "401", "403", "404"]),
+      },
+    },
+    "/api/v1/sites/{siteId}/months/{month}": {
+      get: { summary: "Readings, analyses, state and version of a month", parameters: month, responses: responses(json(ref("Month")), ["400", "401", "403", "404"]) },
+      put: {
+        summary: "Save the month's figures (process engineer; a site token may send readings only)",
+        security: personOrToken,
+        parameters: month,
+        requestBody: body(ref("MonthFigures")),
+        responses: responses(json(ref("Saved")), ["400", "401", "403", "404", "409", "413"]),
+      },
+    },
+    "/api/v1/sites/{siteId}/months/{month}/readings/{stream}": {
+      put: {
+        summary: "Save one monthly total (plant systems); without expectedVersion it is saved against the current version",
+        security: personOrToken,
+        parameters: [...month, params.stream],
+        requestBody: body({ allOf: [ref("ReadingInput"), { type: "object", properties: { expectedVersion: { type: "integer", minimum: 0 } } }] }),
+        responses: responses(json(ref("Saved")), ["400", "401", "403", "404", "409", "413"]),
+      },
+    },
+    "/api/v1/sites/{siteId}/months/{month}/analyses": {
+      get: { summary: "Gas analyses of the month", parameters: month, responses: responses(json({ type: "object", properties: { version: { type: "integer" }, analyses: { type: "array", items: ref("AnalysisInput") } } }), ["400", "401", "403", "404"]) },
+    },
+    "/api/v1/sites/{siteId}/months/{month}/analyses/{key}": {
+      put: {
+        summary: "Add or replace one gas analysis (process engineer)",
+        parameters: [...month, params.key],
+        requestBody: body({ allOf: [ref("AnalysisInput"), { type: "object", properties: { expectedVersion: { type: "integer", minimum: 0 } } }] }),
+        responses: responses(json(ref("Saved")), ["400", "401", "403", "404", "409", "413"]),
+      },
+    },
+    "/api/v1/sites/{siteId}/months/{month}/result": {
+      get: { summary: "Engine result of the stored figures", parameters: month, responses: responses(json({ type: "object", properties: { state: ref("MonthState"), version: { type: "integer" }, result: ref("Result") } }), ["400", "401", "403", "404", "422"]) },
+    },
+    "/api/v1/sites/{siteId}/months/{month}/export": {
+      get: {
+        summary: "The month as a plant-month file (download named synledger-<site code>-<YYYY-MM>.plant-month.json)",
+        parameters: month,
+        responses: responses({ description: "the file", headers: { "Content-Disposition": { schema: { type: "string" } } }, content: { "application/json": { schema: ref("PlantMonth") } } }, ["400", "401", "403", "404"]),
+      },
+    },
+    "/api/v1/sites/{siteId}/months/{month}/import": {
+      post: {
+        summary: "Import a plant-month file: its readings and analyses are saved in one transaction (process engineer)",
+        parameters: [...month, { name: "expectedVersion", in: "query", required: false, schema: { type: "integer", minimum: 0 } }],
+        requestBody: plantFile,
+        responses: responses(json(ref("Saved")), ["400", "401", "403", "404", "409", "413"]),
+      },
+    },
+    "/api/v1/calculate": {
+      post: { summary: "Calculate a plant-month file without storing anything (any member)", requestBody: plantFile, responses: responses(json(ref("Result")), ["400", "401", "403", "413"]) },
+    },
+    "/api/v1/audit/export": {
+      get: {
+        summary: "The filtered audit trail as CSV (any member)",
+        parameters: ["site", "entity", "channel", "actor", "from", "to"].map((name) => ({ name, in: "query", required: false, schema: { type: "string" }, description: name === "from" || name === "to" ? "date YYYY-MM-DD (UTC, inclusive)" : undefined })),
+        responses: responses({ description: "CSV with a header row", content: { "text/csv": { schema: { type: "string" } } } }, ["400", "401", "403"]),
+      },
+    },
+    "/api/v1/openapi.json": {
+      get: { summary: "This description", security: [], responses: { "200": json({ type: "object" }) } },
+    },
+  },
+};

@@ -1,0 +1,57 @@
+import "server-only";
+import { HttpError, type IssueDetail } from "@/lib/auth/errors";
+import { parsePlantMonthText } from "@/lib/balance/schema";
+import type { MonthFiguresInput } from "@/lib/validations/month";
+
+interface SiteStream {
+  key: string;
+  kind: string;
+  archivedAt: Date | null;
+}
+
+export interface ImportPlan {
+  input: MonthFiguresInput;
+  /** Turns an issue path of the saved figures (`readings[1].unit`) back into the file's own (`streams[3].unit`). */
+  filePath: (path: string) => string;
+}
+
+/**
+ * A plant-month file → the figures saveMonthFigures takes. Only measured figures come in:
+ * readings and analyses. What describes the site (kinds, meters, uncertainties, factors) and the
+ * method belong to site set-up and the officer, so the file is checked against them, not obeyed.
+ */
+export function planImport(text: string, period: string, siteName: string, streams: SiteStream[], expectedVersion: number): ImportPlan {
+  const parsed = parsePlantMonthText(text);
+  if (!parsed.ok) {
+    throw new HttpError(400, "invalid_plant_month", "The file is not a valid plant-month document; nothing was saved.", parsed.issues.map((i) => ({ path: i.path, message: i.reason })));
+  }
+  const doc = parsed.doc;
+  const byKey = new Map(streams.map((s) => [s.key, s]));
+  const issues: IssueDetail[] = [];
+  if (doc.month !== period) issues.push({ path: "month", message: `the file is for ${doc.month}, but it was sent to ${period}` });
+  doc.streams.forEach((s, i) => {
+    const known = byKey.get(s.id);
+    if (!known) issues.push({ path: `streams[${i}].id`, message: `${siteName} has no stream "${s.id}" (its streams: ${streams.map((x) => x.key).join(", ") || "none yet"})` });
+    else if (known.kind !== s.kind) issues.push({ path: `streams[${i}].kind`, message: `"${s.id}" is a ${known.kind} stream at ${siteName}, not ${s.kind}` });
+    else if (known.archivedAt) issues.push({ path: `streams[${i}].id`, message: `"${s.id}" is archived at ${siteName}; it takes no new readings` });
+  });
+  if (issues.length) throw new HttpError(400, "invalid_input", "The file does not match the site; nothing was saved.", issues);
+
+  const analysisKeys = Object.keys(doc.analyses);
+  const input: MonthFiguresInput = {
+    expectedVersion,
+    // Decimal.toFixed() writes the exact value without an exponent: no digit is lost or invented.
+    readings: doc.streams.map((s) => ({ stream: s.id, quantity: s.quantity.toFixed(), unit: s.unit, ...(s.note ? { note: s.note } : {}) })),
+    analyses: analysisKeys.map((key) => {
+      const components = Object.fromEntries(Object.entries(doc.analyses[key].components).flatMap(([c, v]) => (v === undefined ? [] : [[c, v.toFixed()]])));
+      const note = doc.analyses[key].note;
+      return { key, components, ...(note ? { note } : {}) };
+    }),
+  };
+  const filePath = (path: string) =>
+    path
+      .replace(/^readings\[(\d+)\]\.stream/, "streams[$1].id")
+      .replace(/^readings\[(\d+)\]/, "streams[$1]")
+      .replace(/^analyses\[(\d+)\]/, (_m, i: string) => `analyses.${analysisKeys[Number(i)]}`);
+  return { input, filePath };
+}
