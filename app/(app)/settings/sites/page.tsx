@@ -1,8 +1,10 @@
 import type { Metadata } from "next";
-import { EmptyState } from "@/components/ui/empty-state";
-import { pageTitle } from "@/components/ui/styles";
+import Link from "next/link";
+import { SitesDataTable } from "@/components/sites/sites-table/data-table";
+import { SitesEmptyState } from "@/components/sites/sites-table/empty-state";
+import { buttonPrimary, pageTitle } from "@/components/ui/styles";
 import { getDb } from "@/db";
-import { listSites } from "@/db/queries/sites";
+import { listSitesForAdmin } from "@/db/queries/site-admin";
 import { requirePageActor } from "@/lib/auth/guard";
 import { SettingsTabs } from "../settings-tabs";
 
@@ -10,32 +12,31 @@ export const metadata: Metadata = { title: "Sites and meters" };
 
 export default async function SitesSettingsPage() {
   const actor = await requirePageActor("site:manage");
-  const sites = await listSites(getDb(), actor.organisationId);
+  const sites = await listSitesForAdmin(getDb(), actor.organisationId);
+  const rows = sites.map(({ archivedAt, ...s }) => ({ ...s, archived: archivedAt !== null }));
   return (
     <div className="space-y-6">
       <div>
         <h1 className={pageTitle}>Settings</h1>
         <SettingsTabs current="sites" />
       </div>
-      {sites.length === 0 ? (
-        <EmptyState title="No sites set up yet">
-          <p>
-            Each site of {actor.organisationName} will be listed here with its metering reference, closure tolerance, emissions
-            method and factor set, and the streams and meters that cross its boundary.
-          </p>
-          <p>Adding and editing sites arrives with the site set-up work; until then sites are loaded by the seed script.</p>
-        </EmptyState>
+      {rows.length === 0 ? (
+        <SitesEmptyState organisationName={actor.organisationName} />
       ) : (
-        <EmptyState title={`${sites.length} site${sites.length === 1 ? "" : "s"} on record`}>
-          <ul className="list-inside list-disc">
-            {sites.map((s) => (
-              <li key={s.id}>
-                {s.name} <span className="num text-ink-faint">({s.code})</span>
-              </li>
-            ))}
-          </ul>
-          <p>Editing a site&rsquo;s streams, meters and factor set will be possible here once the site set-up work lands.</p>
-        </EmptyState>
+        <section aria-labelledby="sites-heading" className="space-y-3">
+          <div className="flex flex-wrap items-end justify-between gap-3">
+            <div>
+              <h2 id="sites-heading" className="text-base font-semibold">
+                Sites of {actor.organisationName}
+              </h2>
+              <p className="text-sm text-ink-soft">Open a site to change its settings and its streams and meters.</p>
+            </div>
+            <Link href="/settings/sites/new" className={buttonPrimary}>
+              Set up a site
+            </Link>
+          </div>
+          <SitesDataTable rows={rows} />
+        </section>
       )}
     </div>
   );

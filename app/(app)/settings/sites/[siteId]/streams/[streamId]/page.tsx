@@ -1,0 +1,51 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { StreamForm } from "@/components/sites/stream-form";
+import { Notice } from "@/components/ui/status";
+import { getDb } from "@/db";
+import { findSite } from "@/db/queries/sites";
+import { findStream, listStreams } from "@/db/queries/streams";
+import { requirePageActor } from "@/lib/auth/guard";
+import { StreamPageFrame } from "../stream-page-frame";
+
+export const metadata: Metadata = { title: "Edit stream" };
+
+export default async function EditStreamPage({ params }: { params: Promise<{ siteId: string; streamId: string }> }) {
+  const { siteId, streamId } = await params;
+  const actor = await requirePageActor("site:manage");
+  const db = getDb();
+  const site = await findSite(db, actor.organisationId, siteId);
+  const s = site ? await findStream(db, actor.organisationId, site.id, streamId) : null;
+  if (!site || !s) notFound();
+  const analysisKeys = [...new Set((await listStreams(db, site.id)).flatMap((x) => (x.analysisKey ? [x.analysisKey] : [])))];
+  return (
+    <StreamPageFrame siteId={site.id} siteName={site.name} title={`Stream ${s.key}`}>
+      {s.archivedAt ? (
+        <div className="mb-4">
+          <Notice tone="locked" title="Archived">
+            This stream no longer appears in new months; its readings stay in the months that have them.
+          </Notice>
+        </div>
+      ) : null}
+      <StreamForm
+        siteId={site.id}
+        streamId={s.id}
+        analysisKeys={analysisKeys}
+        defaults={{
+          key: s.key,
+          name: s.name,
+          kind: s.kind,
+          unit: s.unit,
+          analysisKey: s.analysisKey ?? "",
+          destination: (s.destination ?? "") as never,
+          fate: (s.fate ?? "") as never,
+          uncertaintyPct: s.uncertaintyPct ?? "",
+          indirectFactor: s.indirectFactor ?? "",
+          meterTag: s.meterTag ?? "",
+          calibratedOn: s.calibratedOn ?? "",
+          sortOrder: String(s.sortOrder),
+        }}
+      />
+    </StreamPageFrame>
+  );
+}
