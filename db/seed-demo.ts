@@ -1,5 +1,6 @@
 import { and, eq } from "drizzle-orm";
 import { hashPassword } from "@/lib/auth/password";
+import { ensureDemoCertificate } from "@/lib/signing/demo-seed";
 import type { Db } from "./client";
 import { DEMO_ORGANISATION, DEMO_USERS } from "./demo-users";
 import { recordAudit } from "./queries/audit";
@@ -41,5 +42,7 @@ export async function seedDemo(db: Db): Promise<void> {
       }
     }
     await seedDemoSites(tx, org.id);
+    // The demo signs statements end to end, so it needs a (self-signed) certificate from the start.
+    await ensureDemoCertificate(tx, org.id);
   });
 }

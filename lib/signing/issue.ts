@@ -1,5 +1,5 @@
 import "server-only";
-import type { Db } from "@/db/client";
+import type { Db, Tx } from "@/db/client";
 import { recordAudit, type Channel } from "@/db/queries/audit";
 import {
   activateCertificate,
@@ -85,9 +85,11 @@ export class NoSigningCertificate extends Error {}
 
 /**
  * Signs and stores a statement in one transaction with its audit record: either the statement
- * exists, sealed and hashed, with the event that says who signed it, or nothing does.
+ * exists, sealed and hashed, with the event that says who signed it, or nothing does. Given a
+ * transaction (the month life cycle's), it runs as a savepoint inside it, so the month's state
+ * change and the statement commit together.
  */
-export async function issueStatement(db: Db, input: IssueInput): Promise<{ id: string; sha256: string; signedAt: Date; pdf: Buffer }> {
+export async function issueStatement(db: Db | Tx, input: IssueInput): Promise<{ id: string; sha256: string; signedAt: Date; pdf: Buffer }> {
   return db.transaction(async (tx) => {
     const cert = await activeCertificateWithKey(tx, input.organisationId);
     // PKCS#7 signing time has whole seconds; the stored time must equal what the file says.
