@@ -49,8 +49,9 @@ export function guessDelimiter(text: string): string {
 
 export function parseCsv(text: string, delimiter: Delimiter, maxRows = Infinity): CsvTable {
   const used = delimiter === "auto" ? guessDelimiter(text) : delimiter;
-  // Empty lines are kept (and skipped below) so row numbers stay those of the file.
-  const result = Papa.parse<string[]>(text, { delimiter: used, skipEmptyLines: false, preview: maxRows === Infinity ? 0 : maxRows + 1 });
+  // Empty lines are kept (and skipped below) so row numbers stay those of the file. One row past
+  // the limit is read, so the caller can tell "at the limit" from "over it".
+  const result = Papa.parse<string[]>(text, { delimiter: used, skipEmptyLines: false, preview: maxRows === Infinity ? 0 : maxRows + 2 });
   const data = result.data;
   while (data.length && data[data.length - 1].length === 1 && data[data.length - 1][0] === "") data.pop();
   const headers = (data[0] ?? []).map((h) => h.trim());

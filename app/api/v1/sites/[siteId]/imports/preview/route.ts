@@ -1,0 +1,20 @@
+import { getDb } from "@/db";
+import { findSite } from "@/db/queries/sites";
+import { notFound } from "@/lib/auth/errors";
+import { apiRoute } from "@/lib/auth/guard";
+import { analyseImport, readImportRequest } from "@/lib/import/analyse";
+import { previewBody } from "@/lib/import/commit";
+import { progressResponse } from "@/lib/import/progress-response";
+
+/**
+ * POST multipart (file, mapping, [confirmReplace]) → every bad row and cell, the monthly totals
+ * the file would write beside the current ones, and whether this file was imported before.
+ * Writes nothing. Send `Accept: application/x-ndjson` for progress lines.
+ */
+export const POST = apiRoute<{ siteId: string }>("month:enter", "import monthly figures", async (req, actor, { siteId }) => {
+  const db = getDb();
+  // The site is checked before the upload is read, so another organisation's id costs nothing.
+  if (!(await findSite(db, actor.organisationId, siteId))) throw notFound("The site");
+  const request = await readImportRequest(req);
+  return progressResponse(req, async (emit) => previewBody(request, await analyseImport(db, actor.organisationId, siteId, request, emit)));
+});
