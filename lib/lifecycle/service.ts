@@ -88,6 +88,18 @@ export async function transitionMonth(db: Db, actor: LifecycleActor, input: Tran
     let statementId: string | undefined;
     let mailExtra: string | null = null;
 
+    if (input.transition === "send-for-review") {
+      // Checked before the engine runs: without a method the engine can only say "invalid input".
+      const method = month.emissionsMethod || site.emissionsMethod;
+      const factorSet = month.factorSet || site.factorSet;
+      const missing: IssueDetail[] = [];
+      if (!method?.trim()) missing.push({ path: "emissions_method", message: "choose an emissions method for the month or the site" });
+      if (!factorSet?.trim()) missing.push({ path: "factor_set", message: "choose a factor set for the month or the site" });
+      if (missing.length) throw unmet("The statement needs an emissions method and a factor set.", missing);
+      extra.method = method;
+      extra.factorSet = factorSet;
+    }
+
     if (input.transition === "balance" || input.transition === "send-for-review") {
       const run = await runStoredMonth(tx, actor.organisationId, site.id, input.period);
       if (!run || !run.ok) {
@@ -104,15 +116,6 @@ export async function transitionMonth(db: Db, actor: LifecycleActor, input: Tran
         }
         balanceNote = reason ?? null;
         extra.closures = Object.fromEntries(run.balances.map((b) => [b.element, b.closurePct]));
-      } else {
-        const method = month.emissionsMethod ?? site.emissionsMethod;
-        const factorSet = month.factorSet ?? site.factorSet;
-        const missing: IssueDetail[] = [];
-        if (!method?.trim()) missing.push({ path: "emissions_method", message: "choose an emissions method for the month or the site" });
-        if (!factorSet?.trim()) missing.push({ path: "factor_set", message: "choose a factor set for the month or the site" });
-        if (missing.length) throw unmet("The statement needs an emissions method and a factor set.", missing);
-        extra.method = method;
-        extra.factorSet = factorSet;
       }
     }
 

@@ -1,0 +1,69 @@
+/**
+ * Shared set-up of the life-cycle tests: a fixture organisation with the two demo sites and
+ * their twelve seeded months of 2026 (Open, computing), and a demo signing certificate.
+ */
+import { and, eq } from "drizzle-orm";
+import { seedDemoSites } from "@/db/seed-sites";
+import { months, sites } from "@/db/schema";
+import { HttpError } from "@/lib/auth/errors";
+import type { Role } from "@/lib/auth/roles";
+import { transitionMonth, type LifecycleActor, type TransitionInput } from "@/lib/lifecycle/service";
+import { ensureDemoCertificate } from "@/lib/signing/demo-seed";
+import { testDb } from "../support/db";
+import { createOrg, type FixtureOrg } from "../support/fixtures";
+
+export interface LifecycleOrg extends FixtureOrg {
+  estuaryId: string;
+  dunmoorId: string;
+  actor(role: Role): LifecycleActor;
+}
+
+export async function lifecycleOrg(label = "Life"): Promise<LifecycleOrg> {
+  process.env.SIGNING_SECRET ??= "integration-test-signing-secret-0123456789";
+  const db = testDb();
+  const org = await createOrg(db, label);
+  await db.transaction(async (tx) => {
+    await seedDemoSites(tx, org.id);
+    await ensureDemoCertificate(tx, org.id);
+  });
+  const rows = await db.select().from(sites).where(eq(sites.organisationId, org.id));
+  const id = (code: string) => rows.find((s) => s.code === code)!.id;
+  return {
+    ...org,
+    estuaryId: id("estuary"),
+    dunmoorId: id("dunmoor"),
+    actor(role: Role): LifecycleActor {
+      const m = org.members[role];
+      return { organisationId: org.id, organisationName: org.name, userId: m.id, name: m.name, email: m.email, roles: m.roles };
+    },
+  };
+}
+
+export async function monthRow(siteId: string, period: string) {
+  const [m] = await testDb().select().from(months).where(and(eq(months.siteId, siteId), eq(months.period, period)));
+  return m;
+}
+
+/** Performs a transition at the month's current version. */
+export async function act(org: LifecycleOrg, role: Role, siteId: string, period: string, transition: TransitionInput["transition"], more: Partial<TransitionInput> = {}) {
+  const m = await monthRow(siteId, period);
+  return transitionMonth(testDb(), org.actor(role), { siteId, period, transition, expectedVersion: m.version, ...more });
+}
+
+export async function refusal(run: () => Promise<unknown>): Promise<HttpError> {
+  try {
+    await run();
+  } catch (err) {
+    if (err instanceof HttpError) return err;
+    throw err;
+  }
+  throw new Error("expected a refusal");
+}
+
+/** Sets a month's state directly, for table-driven tests that start from every state. */
+export async function forceState(siteId: string, period: string, state: (typeof months.$inferSelect)["state"]) {
+  await testDb()
+    .update(months)
+    .set({ state })
+    .where(and(eq(months.siteId, siteId), eq(months.period, period)));
+}
