@@ -3,6 +3,7 @@ import Link from "next/link";
 const TABS = [
   { key: "users", href: "/settings/users", label: "Users and invitations" },
   { key: "sites", href: "/settings/sites", label: "Sites and meters" },
+  { key: "api-tokens", href: "/settings/api-tokens", label: "API tokens" },
 ] as const;
 
 /** Sub-navigation of the settings area (administrators only). */

@@ -15,6 +15,7 @@ const PAGE = "/settings/api-tokens";
 export interface CreatedToken {
   token: string;
   label: string;
+  siteId: string;
   siteName: string;
 }
 
@@ -41,7 +42,7 @@ export async function createSiteApiToken(_prev: ActionResult<CreatedToken> | nul
         entityId: row.id,
         after: { label: input.label, prefix, site: site.name, scope: "readings:write" },
       });
-      return { ok: true, message: `Token "${input.label}" created for ${site.name}.`, data: { token, label: input.label, siteName: site.name } };
+      return { ok: true, message: `Token "${input.label}" created for ${site.name}.`, data: { token, label: input.label, siteId: site.id, siteName: site.name } };
     });
   });
   if (result.ok) revalidatePath(PAGE);
