@@ -1,0 +1,39 @@
+import { getDb } from "@/db";
+import { attachmentContent } from "@/db/queries/attachments";
+import { notFound } from "@/lib/auth/errors";
+import { apiRoute } from "@/lib/auth/guard";
+import { deleteAttachment } from "@/lib/attachments/service";
+
+type Params = { attachmentId: string };
+
+/** RFC 6266: a plain ASCII name for old clients, the exact UTF-8 name for the others. */
+function disposition(name: string): string {
+  const ascii = name.replace(/[^\x20-\x7e]/g, "_").replace(/["\\]/g, "_");
+  return `attachment; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(name)}`;
+}
+
+/**
+ * GET → the file, always as a download with the type detected at upload. nosniff and a sandboxing
+ * CSP keep a browser from ever running what it holds, whatever it contains.
+ */
+export const GET = apiRoute<Params>("org:read", "download attachments", async (_req, actor, { attachmentId }) => {
+  const file = await attachmentContent(getDb(), actor.organisationId, attachmentId);
+  if (!file) throw notFound("The attachment");
+  return new Response(new Uint8Array(file.content), {
+    headers: {
+      "content-type": file.mediaType === "text/csv" ? "text/csv; charset=utf-8" : file.mediaType,
+      "content-length": String(file.content.length),
+      "content-disposition": disposition(file.fileName),
+      "x-content-type-options": "nosniff",
+      "content-security-policy": "default-src 'none'; sandbox",
+      "cache-control": "private, no-store",
+      etag: `"${file.sha256}"`,
+    },
+  });
+});
+
+/** DELETE → by the uploader or an administrator, while the month is not signed. */
+export const DELETE = apiRoute<Params>("org:read", "delete attachments", async (_req, actor, { attachmentId }) => {
+  await deleteAttachment(getDb(), actor, attachmentId);
+  return new Response(null, { status: 204 });
+});
