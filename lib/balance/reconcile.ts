@@ -38,7 +38,6 @@ export interface ReconcileSolution {
 }
 
 export function reconcile(p: ReconcileProblem): ReconcileSolution {
-  const n = p.measured.length;
   const nu = p.B[0]?.length ?? 0;
   const rows = p.A.length;
   const conf = p.confidence ?? dec("0.95");

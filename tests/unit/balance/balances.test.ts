@@ -6,7 +6,7 @@ import { M_NH3, feedFigures, minimumFeed, mixPerMole } from "../../../lib/balanc
 import { compositionOf, gasProperties } from "../../../lib/balance/gas-properties";
 import { parsePlantMonth, type PlantMonth } from "../../../lib/balance/schema";
 import { DRY_AIR, analysesOf, streamFlows, streamGas } from "../../../lib/balance/streams";
-import { STOICH_PLANT, variant } from "./fixtures";
+import { type LooseDoc, STOICH_PLANT, variant } from "./fixtures";
 
 const near = (x: Dec | null, expected: string, tol = "1e-30") => expect(x !== null && x.minus(expected).abs().lte(tol), `${x} vs ${expected}`).toBe(true);
 const docOf = (raw: unknown): PlantMonth => {
@@ -100,7 +100,7 @@ describe("balance rules of the plant-month format", () => {
     expect(balanceFlags(flows, b).map((f) => f.code)).toContain("carbon-closure-open");
   });
   it("missing streams, ratio and tolerance flags", () => {
-    const doc = docOf(variant((d) => (d.streams = d.streams.filter((s: any) => s.kind !== "ammonia" && s.kind !== "process-air"))));
+    const doc = docOf(variant((d) => (d.streams = d.streams.filter((s: LooseDoc) => s.kind !== "ammonia" && s.kind !== "process-air"))));
     const flows = flowsOf(doc);
     const codes = balanceFlags(flows, elementBalances(flows)).map((f) => f.code);
     expect(codes).toEqual(expect.arrayContaining(["missing-ammonia", "missing-process-air", "nitrogen-closure-open", "hydrogen-closure-open"]));

@@ -26,8 +26,12 @@ export const STOICH_PLANT = {
 
 export const stoichText = () => JSON.stringify(STOICH_PLANT);
 
+/** The fixture as loose JSON: a bad-input case may put anything anywhere, which no precise type allows. */
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+export type LooseDoc = any;
+
 /** A deep copy with edits applied, for the bad-input cases. */
-export function variant(edit: (doc: any) => void): any {
+export function variant(edit: (doc: LooseDoc) => void): LooseDoc {
   const doc = JSON.parse(JSON.stringify(STOICH_PLANT));
   edit(doc);
   return doc;

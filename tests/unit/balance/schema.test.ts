@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { fmt, dec, sum } from "../../../lib/balance/decimal";
 import { JsonNumber, JsonSyntaxError, readJson } from "../../../lib/balance/json-reader";
 import { describeIssues, formatPath, parsePlantMonth, parsePlantMonthText } from "../../../lib/balance/schema";
-import { STOICH_PLANT, stoichText, variant } from "./fixtures";
+import { type LooseDoc, STOICH_PLANT, stoichText, variant } from "./fixtures";
 
 const issuesOf = (doc: unknown) => {
   const r = parsePlantMonth(doc);
@@ -43,21 +43,21 @@ describe("plant-month schema", () => {
     if (!r.ok) expect(r.issues[0].reason).toMatch(/position 11/);
   });
   it.each([
-    ["unknown unit", (d: any) => (d.streams[2].unit = "Xm3"), "streams[2].unit", /unknown unit "Xm3"/],
-    ["negative quantity", (d: any) => (d.streams[3].quantity = "-5"), "streams[3].quantity", /must not be negative/],
-    ["non-numeric quantity", (d: any) => (d.streams[0].quantity = "12,5"), "streams[0].quantity", /not a number/],
-    ["composition beyond 0.5 of 100", (d: any) => (d.analyses.methane.components.CH4 = "99.4"), "analyses.methane.components", /99.4 %/],
-    ["analysis not defined", (d: any) => (d.streams[0].analysis = "nope"), "streams[0].analysis", /not defined/],
-    ["feed-gas without analysis", (d: any) => delete d.streams[0].analysis, "streams[0].analysis", /needs an analysis/],
-    ["fuel-gas without analysis", (d: any) => delete d.streams[1].analysis, "streams[1].analysis", /needs an analysis/],
-    ["purge-gas without fate", (d: any) => d.streams.push({ id: "p", kind: "purge-gas", analysis: "methane", quantity: "1", unit: "t" }), "streams[6].fate", /needs a fate/],
-    ["co2-export without destination", (d: any) => delete d.streams[4].destination, "streams[4].destination", /needs a destination/],
-    ["MWh on a gas stream", (d: any) => (d.streams[0].unit = "MWh"), "streams[0].unit", /not valid for a feed-gas/],
-    ["GJ-LHV on process air", (d: any) => (d.streams[2].unit = "GJ-LHV"), "streams[2].unit", /not valid for a process-air/],
-    ["duplicate stream id", (d: any) => (d.streams[5].id = "feed"), "streams[5].id", /duplicate stream id/],
-    ["bad month", (d: any) => (d.month = "2026-13"), "month", /YYYY-MM/],
-    ["unknown component", (d: any) => (d.analyses.methane.components.XY = "1"), "analyses.methane.components", /unknown component XY/],
-    ["typo in a stream key", (d: any) => (d.streams[0].quantiy = "1"), "streams[0]", /quantiy/],
+    ["unknown unit", (d: LooseDoc) => (d.streams[2].unit = "Xm3"), "streams[2].unit", /unknown unit "Xm3"/],
+    ["negative quantity", (d: LooseDoc) => (d.streams[3].quantity = "-5"), "streams[3].quantity", /must not be negative/],
+    ["non-numeric quantity", (d: LooseDoc) => (d.streams[0].quantity = "12,5"), "streams[0].quantity", /not a number/],
+    ["composition beyond 0.5 of 100", (d: LooseDoc) => (d.analyses.methane.components.CH4 = "99.4"), "analyses.methane.components", /99.4 %/],
+    ["analysis not defined", (d: LooseDoc) => (d.streams[0].analysis = "nope"), "streams[0].analysis", /not defined/],
+    ["feed-gas without analysis", (d: LooseDoc) => delete d.streams[0].analysis, "streams[0].analysis", /needs an analysis/],
+    ["fuel-gas without analysis", (d: LooseDoc) => delete d.streams[1].analysis, "streams[1].analysis", /needs an analysis/],
+    ["purge-gas without fate", (d: LooseDoc) => d.streams.push({ id: "p", kind: "purge-gas", analysis: "methane", quantity: "1", unit: "t" }), "streams[6].fate", /needs a fate/],
+    ["co2-export without destination", (d: LooseDoc) => delete d.streams[4].destination, "streams[4].destination", /needs a destination/],
+    ["MWh on a gas stream", (d: LooseDoc) => (d.streams[0].unit = "MWh"), "streams[0].unit", /not valid for a feed-gas/],
+    ["GJ-LHV on process air", (d: LooseDoc) => (d.streams[2].unit = "GJ-LHV"), "streams[2].unit", /not valid for a process-air/],
+    ["duplicate stream id", (d: LooseDoc) => (d.streams[5].id = "feed"), "streams[5].id", /duplicate stream id/],
+    ["bad month", (d: LooseDoc) => (d.month = "2026-13"), "month", /YYYY-MM/],
+    ["unknown component", (d: LooseDoc) => (d.analyses.methane.components.XY = "1"), "analyses.methane.components", /unknown component XY/],
+    ["typo in a stream key", (d: LooseDoc) => (d.streams[0].quantiy = "1"), "streams[0]", /quantiy/],
   ])("rejects %s with a JSON path", (_name, edit, path, reason) => {
     const issues = issuesOf(variant(edit));
     const hit = issues.find((i) => i.path === path);
