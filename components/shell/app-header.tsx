@@ -12,6 +12,7 @@ export function AppHeader({ actor, sites, defaultMonth }: { actor: Actor; sites:
     { href: "/", label: "Overview", match: ["/"] },
     { href: "/months", label: "Monthly ledger", match: ["/months", "/sites"] },
     { href: "/statements", label: "Statements", match: ["/statements"] },
+    { href: "/verify", label: "Verify", match: ["/verify"] },
     { href: "/audit", label: "Audit trail", match: ["/audit"] },
   ];
   // Settings hold users and sites, both administrator work; others never see a link they cannot use.

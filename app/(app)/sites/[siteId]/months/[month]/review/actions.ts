@@ -1,0 +1,39 @@
+"use server";
+
+import { revalidatePath } from "next/cache";
+import { z } from "zod";
+import { getDb } from "@/db";
+import { guardedAction, type ActionResult } from "@/lib/auth/guard";
+import { transitionMonth } from "@/lib/lifecycle/service";
+import { STATE_LABELS, TRANSITIONS } from "@/lib/lifecycle/transitions";
+
+const transitionSchema = z.object({
+  siteId: z.string().min(1),
+  period: z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/),
+  transition: z.enum(TRANSITIONS),
+  expectedVersion: z.coerce.number().int().min(0),
+  reason: z.string().max(4000, "at most 4000 characters").optional(),
+  reference: z.string().max(120).optional(),
+  submittedOn: z.string().max(10).optional(),
+});
+
+/**
+ * One life-cycle step from the review page. Role, state, version and preconditions are all
+ * checked by the service inside its transaction; this only reads the form and names the outcome.
+ */
+export async function transitionAction(_prev: ActionResult | null, formData: FormData): Promise<ActionResult> {
+  const raw = Object.fromEntries([...formData.entries()].filter(([k, v]) => !k.startsWith("$") && typeof v === "string"));
+  const result = await guardedAction<undefined>("org:read", "change the month's state", async (actor) => {
+    const input = transitionSchema.parse(raw);
+    const out = await transitionMonth(getDb(), actor, input);
+    const mail = out.notified ? ` ${out.notified} ${out.notified === 1 ? "person was" : "people were"} notified.` : "";
+    return { ok: true, message: `Done: the month is now ${STATE_LABELS[out.state]} (revision ${out.revision}).${mail}` };
+  });
+  if (result.ok) {
+    const siteId = String(formData.get("siteId"));
+    const period = String(formData.get("period"));
+    revalidatePath(`/sites/${siteId}/months/${period}/review`);
+    revalidatePath("/statements");
+  }
+  return result;
+}

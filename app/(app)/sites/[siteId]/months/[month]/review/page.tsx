@@ -1,0 +1,110 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { HistoryList, SignedPdfList } from "@/components/lifecycle/history-list";
+import { LifecyclePanel } from "@/components/lifecycle/lifecycle-panel";
+import { BalanceSection } from "@/components/review/balance-section";
+import { Section } from "@/components/review/figure-table";
+import { EmissionsSections } from "@/components/review/statement-sections";
+import { EmptyState } from "@/components/ui/empty-state";
+import { formatMonth, isMonthKey } from "@/components/ui/format";
+import { Notice } from "@/components/ui/status";
+import { link, pageTitle } from "@/components/ui/styles";
+import { getDb } from "@/db";
+import { requirePageActor } from "@/lib/auth/guard";
+import { loadReview } from "@/lib/lifecycle/review-data";
+import { transitionAction } from "./actions";
+
+type Params = { siteId: string; month: string };
+
+export async function generateMetadata({ params }: { params: Promise<Params> }): Promise<Metadata> {
+  const { month } = await params;
+  return { title: isMonthKey(month) ? `Review ${formatMonth(month)}` : "Review" };
+}
+
+/**
+ * The month as the officer and signatory judge it: balances, reconciliation, emissions and
+ * method from the engine run of the stored figures, and the life-cycle panel beside them.
+ * Every member may read it; the panel offers only what the reader's roles allow.
+ */
+export default async function ReviewPage({ params }: { params: Promise<Params> }) {
+  const { siteId, month: period } = await params;
+  const actor = await requirePageActor();
+  if (!isMonthKey(period)) notFound();
+  const data = await loadReview(getDb(), actor, siteId, period);
+  if (!data) notFound();
+  const { site } = data;
+  const monthHref = `/sites/${site.id}/months/${period}`;
+
+  return (
+    <div className="space-y-6">
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <div>
+          <p className="text-sm text-ink-soft">
+            {site.name} <span className="num text-ink-faint">{site.code}</span> ·{" "}
+            <Link className={link} href={monthHref}>
+              figures of the month
+            </Link>
+          </p>
+          <h1 className={pageTitle}>Review and sign-off: {formatMonth(period)}</h1>
+        </div>
+      </div>
+
+      {!data.month ? (
+        <EmptyState title="Nothing entered for this month yet">
+          <p>The review starts once a process engineer has entered or imported the month&rsquo;s figures.</p>
+        </EmptyState>
+      ) : (
+        <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
+          <div className="min-w-0 space-y-6">
+            {data.run && !data.run.ok ? (
+              <Notice tone="fault" title="The stored figures do not compute">
+                <ul className="list-disc pl-5">
+                  {data.run.issues.map((i) => (
+                    <li key={i.path}>
+                      <span className="num">{i.path}</span>: {i.reason}
+                    </li>
+                  ))}
+                </ul>
+              </Notice>
+            ) : null}
+            {data.run?.ok && data.model ? (
+              <>
+                {data.month.balanceNote ? (
+                  <Notice tone="info" title="Engineer's note on the balance">
+                    {data.month.balanceNote}
+                  </Notice>
+                ) : null}
+                <BalanceSection
+                  doc={data.run.doc}
+                  model={data.model}
+                  tolerance={site.closureTolerancePct}
+                  streams={data.run.bundle.streams.map((s) => ({ key: s.key, name: s.name, unit: s.unit, meterTag: s.meterTag }))}
+                />
+                <EmissionsSections m={data.model} />
+              </>
+            ) : null}
+          </div>
+          <aside className="space-y-6">
+            <LifecyclePanel
+              roles={actor.roles}
+              state={data.month.state}
+              revision={data.month.revision}
+              version={data.month.version}
+              siteId={site.id}
+              period={period}
+              pre={data.pre}
+              action={transitionAction}
+            />
+            <Section id="signed-pdfs" title="Signed statements">
+              <SignedPdfList statements={data.statements} />
+            </Section>
+            <Section id="history" title="History">
+              <HistoryList items={data.events} />
+            </Section>
+          </aside>
+        </div>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,98 @@
+/**
+ * The balance half of the review page: the three element balances as beams, the H2:N2 make-up
+ * ratio against 3, and the reconciliation (measured against reconciled, suspect meters named).
+ */
+import type { ResultDocument } from "@/lib/balance/result";
+import { exact, fixed, signed } from "@/reports/format";
+import type { MonthlyStatementModel } from "@/reports/model";
+import { Decimal } from "decimal.js";
+import { BalanceBeam } from "./balance-beam";
+import { FigureTable, MarkText, QtyCell, Section } from "./figure-table";
+
+export interface StreamName {
+  key: string;
+  name: string;
+  unit: string;
+  meterTag: string | null;
+}
+
+/** Deviation of the ratio from 3 as a percentage of 3, so it sits on a beam like the closures. */
+function ratioDeviationPct(ratio: string | null): string | null {
+  return ratio === null ? null : new Decimal(ratio).minus(3).div(3).times(100).toString();
+}
+
+export function BalanceSection({ doc, model, tolerance, streams }: { doc: ResultDocument; model: MonthlyStatementModel; tolerance: string; streams: StreamName[] }) {
+  const b = doc.balances;
+  const rows = model.balances;
+  const rec = doc.reconciliation;
+  const byKey = new Map(streams.map((s) => [s.key, s]));
+  return (
+    <>
+      <Section
+        id="balances"
+        title="Element balances"
+        note={`Closure is (out − in) / in. The shaded band is the site's tolerance of ±${fixed(tolerance, 1)} %; a beam tipping outside it needs the engineer's written reason before the month can be balanced.`}
+      >
+        <div className="grid gap-3 md:grid-cols-2">
+          <BalanceBeam title="Carbon" value={b.carbon.closure_pct} tolerance={tolerance} unit="%" valueText={`${signed(b.carbon.closure_pct, 2)} %`} detail={`in ${rows[0].inflow.value} ${rows[0].inflow.unit}, out ${rows[0].outflow.value} ${rows[0].outflow.unit}`} />
+          <BalanceBeam title="Nitrogen" value={b.nitrogen.closure_pct} tolerance={tolerance} unit="%" valueText={`${signed(b.nitrogen.closure_pct, 2)} %`} detail={`in ${rows[1].inflow.value} ${rows[1].inflow.unit}, out ${rows[1].outflow.value} ${rows[1].outflow.unit}`} />
+          <BalanceBeam title="Hydrogen equivalents" value={b.hydrogen.closure_pct} tolerance={tolerance} unit="%" valueText={`${signed(b.hydrogen.closure_pct, 2)} %`} detail={`available ${rows[2].inflow.value} ${rows[2].inflow.unit}, used ${rows[2].outflow.value} ${rows[2].outflow.unit}`} />
+          <BalanceBeam
+            title="H2:N2 make-up ratio against 3"
+            value={ratioDeviationPct(doc.synthesis.h2_n2_ratio)}
+            tolerance="5"
+            unit="%"
+            valueText={`${fixed(doc.synthesis.h2_n2_ratio, 3)} : 1`}
+            sides={["nitrogen-rich", "hydrogen-rich"]}
+            detail="Shown as the deviation from 3 : 1 in %; the band is ±5 % (2.85–3.15), common practice, no source."
+          />
+        </div>
+      </Section>
+
+      <Section
+        id="reconciliation"
+        title="Reconciliation"
+        note={
+          rec
+            ? `Weighted least squares adjusts each measured flow within its stated uncertainty so the balances close. Global test: chi-square ${fixed(rec.chi2, 2)} against ${fixed(rec.chi2_critical, 2)} (${rec.dof} degrees of freedom, 95 %).`
+            : "Data reconciliation was not run for this month."
+        }
+      >
+        {rec ? (
+          <>
+            <p>
+              {rec.passed ? (
+                <MarkText mark="ok">Global test passed: the meters agree with the balances within their uncertainties.</MarkText>
+              ) : (
+                <MarkText mark="attention">Global test failed: the balances and the stated meter uncertainties disagree.</MarkText>
+              )}
+            </p>
+            <FigureTable
+              caption="Measured and reconciled flows"
+              columns={[
+                { title: "Stream", cell: (r) => <span>{byKey.get(r.id)?.name ?? r.id}</span> },
+                { title: "Meter", cell: (r) => <span className="num text-xs">{byKey.get(r.id)?.meterTag ?? "—"}</span> },
+                { title: "Measured", numeric: true, cell: (r) => <QtyCell q={{ value: exact(r.measured), unit: byKey.get(r.id)?.unit ?? "" }} /> },
+                { title: "Reconciled", numeric: true, cell: (r) => <QtyCell q={{ value: fixed(r.reconciled, 0), unit: byKey.get(r.id)?.unit ?? "" }} /> },
+                { title: "Adjustment", numeric: true, cell: (r) => <QtyCell q={{ value: signed(r.adjustment_pct, 2), unit: "%" }} /> },
+                { title: `Test (limit ${fixed(rec.z_critical, 2)})`, numeric: true, cell: (r) => <span className="num">{fixed(r.test_statistic, 2)}</span> },
+                {
+                  title: "Verdict",
+                  cell: (r) =>
+                    r.suspect ? (
+                      <MarkText mark="attention">Suspect meter</MarkText>
+                    ) : r.redundancy === "redundant" ? (
+                      <MarkText mark="ok">Consistent</MarkText>
+                    ) : (
+                      <MarkText mark="info">Not checkable</MarkText>
+                    ),
+                },
+              ]}
+              rows={rec.streams}
+            />
+          </>
+        ) : null}
+      </Section>
+    </>
+  );
+}

@@ -1,0 +1,127 @@
+/**
+ * The emissions half of the review page, drawn from the same MonthlyStatementModel the signed
+ * PDF prints: what the signatory reads here is, string for string, what the statement says.
+ */
+import type { MonthlyStatementModel } from "@/reports/model";
+import { FigureTable, MarkText, QtyCell, Section } from "./figure-table";
+
+export function EmissionsSections({ m }: { m: MonthlyStatementModel }) {
+  const u = m.emissionsUnit;
+  return (
+    <>
+      <Section id="emissions" title="Emissions by source and gas">
+        <FigureTable
+          caption="Emissions by source"
+          columns={[
+            { title: "Source", cell: (r) => r.source },
+            { title: "Basis", cell: (r) => <span className="text-xs text-ink-soft">{r.basis}</span> },
+            { title: `CO2 (${u})`, numeric: true, cell: (r) => <span className="num">{r.co2}</span> },
+            { title: `CH4 (${u})`, numeric: true, cell: (r) => <span className="num">{r.ch4}</span> },
+            { title: `N2O (${u})`, numeric: true, cell: (r) => <span className="num">{r.n2o}</span> },
+            { title: `CO2e (${u})`, numeric: true, cell: (r) => <span className="num">{r.co2e}</span> },
+          ]}
+          rows={m.emissionsBySource}
+        />
+        <FigureTable
+          caption="Emissions by gas"
+          columns={[
+            { title: "Gas", cell: (r) => r.gas },
+            { title: "Mass", numeric: true, cell: (r) => <QtyCell q={r.mass} /> },
+            { title: "GWP (100 yr)", numeric: true, cell: (r) => <span className="num">{r.gwp}</span> },
+            { title: "CO2-equivalent", numeric: true, cell: (r) => <QtyCell q={r.co2e} /> },
+          ]}
+          rows={m.emissionsByGas}
+        />
+        <dl className="grid grid-cols-1 gap-3 border border-rule bg-white px-4 py-3 sm:grid-cols-3">
+          {(
+            [
+              ["Gross CO2", m.co2.gross],
+              ["Deducted (transferred)", m.co2.deducted],
+              ["Net CO2", m.co2.net],
+            ] as const
+          ).map(([label, q]) => (
+            <div key={label}>
+              <dt className="text-xs text-ink-soft">{label}</dt>
+              <dd className="text-lg">
+                <QtyCell q={q} strong={label === "Net CO2"} />
+              </dd>
+            </div>
+          ))}
+          <p className="text-xs text-ink-soft sm:col-span-3">{m.co2.deductionNote}</p>
+        </dl>
+      </Section>
+
+      <Section id="intensities" title="Intensities against benchmarks">
+        <FigureTable
+          caption="Intensities"
+          columns={[
+            { title: "Measure", cell: (r) => r.measure },
+            { title: "This month", numeric: true, cell: (r) => <QtyCell q={r.value} strong /> },
+            { title: "Benchmark", numeric: true, cell: (r) => <QtyCell q={r.benchmark} /> },
+            { title: "Benchmark source", cell: (r) => <span className="text-xs">{r.benchmarkSource}</span> },
+            { title: "Position", cell: (r) => <MarkText mark={r.mark}>{r.position}</MarkText> },
+          ]}
+          rows={m.intensities}
+        />
+        <FigureTable
+          caption="Uncertainty"
+          columns={[
+            { title: "Figure", cell: (r) => r.figure },
+            { title: "Value", numeric: true, cell: (r) => <QtyCell q={r.value} /> },
+            { title: "Expanded uncertainty", cell: (r) => <span className="num text-xs">{r.expanded}</span> },
+            { title: "From", cell: (r) => <span className="text-xs text-ink-soft">{r.note}</span> },
+          ]}
+          rows={m.uncertainty}
+        />
+      </Section>
+
+      <Section id="flags" title="Flags and explanations">
+        <FigureTable
+          caption="Flags"
+          empty="The engine raised no flags for this month."
+          columns={[
+            { title: "Flag", cell: (r) => <MarkText mark={r.mark}>{r.code}</MarkText> },
+            { title: "What the engine found", cell: (r) => r.message },
+            {
+              title: "Explanation",
+              cell: (r) =>
+                r.explanation ? (
+                  <span>
+                    {r.explanation} <span className="text-xs text-ink-soft">({r.explainedBy})</span>
+                  </span>
+                ) : (
+                  <span className="text-ink-faint">no explanation recorded</span>
+                ),
+            },
+          ]}
+          rows={m.flags}
+        />
+      </Section>
+
+      <Section id="method" title="Method and factor set">
+        <dl className="grid grid-cols-1 gap-x-6 gap-y-1 border border-rule bg-white px-4 py-3 text-sm sm:grid-cols-[10rem_1fr]">
+          <dt className="text-ink-soft">Method</dt>
+          <dd>{m.method.method}</dd>
+          <dt className="text-ink-soft">Factor set</dt>
+          <dd>{m.method.factorSet}</dd>
+          <dt className="text-ink-soft">GWP values</dt>
+          <dd>{m.method.gwpSet}</dd>
+        </dl>
+        <FigureTable
+          caption="Factors and their sources"
+          columns={[
+            { title: "Factor or rule", cell: (r) => r.item },
+            { title: "Value", numeric: true, cell: (r) => <QtyCell q={r.value} /> },
+            { title: "Source", cell: (r) => <span className={r.source.includes("from memory") ? "text-warn" : ""}>{r.source}</span> },
+          ]}
+          rows={m.method.sources}
+        />
+        {m.method.notes.map((n) => (
+          <p key={n} className="text-xs text-ink-soft">
+            {n}
+          </p>
+        ))}
+      </Section>
+    </>
+  );
+}
