@@ -37,7 +37,8 @@ function flatten(value: unknown, prefix = "", out = new Map<string, string>()): 
     return out;
   }
   for (const [k, v] of Object.entries(value as Record<string, unknown>)) {
-    if (!prefix && HIDDEN_FIELDS.has(k)) continue;
+    // A null field holds nothing: setting it reads as an addition, clearing it as a removal.
+    if (v === null || v === undefined || (!prefix && HIDDEN_FIELDS.has(k))) continue;
     const key = prefix ? `${prefix}.${k}` : k;
     if (v !== null && typeof v === "object" && !Array.isArray(v)) flatten(v, key, out);
     else out.set(key, text(v));

@@ -12,6 +12,7 @@ const ENTITY_LABELS: Record<string, string> = {
   import: "Import",
   import_batch: "Import",
   attachment: "Attachment",
+  signing_certificate: "Signing certificate",
 };
 
 export function entityLabel(entity: string): string {

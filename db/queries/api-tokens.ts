@@ -1,4 +1,4 @@
-import { and, desc, eq, isNull } from "drizzle-orm";
+import { and, desc, eq, isNull, sql } from "drizzle-orm";
 import type { Db, Tx } from "../client";
 import { apiTokens, sites, users } from "../schema";
 
@@ -71,4 +71,14 @@ export async function lockApiToken(tx: Tx, organisationId: string, id: string) {
 
 export async function revokeApiToken(tx: Tx, id: string, at = new Date()): Promise<void> {
   await tx.update(apiTokens).set({ revokedAt: at }).where(eq(apiTokens.id, id));
+}
+
+/** Whether an active token of the site already carries the label (compared ignoring case). */
+export async function activeLabelTaken(db: Db | Tx, siteId: string, label: string): Promise<boolean> {
+  const [row] = await db
+    .select({ id: apiTokens.id })
+    .from(apiTokens)
+    .where(and(eq(apiTokens.siteId, siteId), isNull(apiTokens.revokedAt), sql`lower(${apiTokens.label}) = lower(${label})`))
+    .limit(1);
+  return !!row;
 }

@@ -3,6 +3,7 @@ import { zodIssues, type IssueDetail } from "@/lib/auth/errors";
 
 export const CHANNELS = ["form", "import", "api-token", "system", "seed"] as const;
 export const AUDIT_PAGE_SIZE = 50;
+const DAY = /^\d{4}-\d{2}-\d{2}$/;
 
 const blankIsAbsent = (v: unknown) => (typeof v === "string" && v.trim() === "" ? undefined : v);
 const opt = <T extends z.ZodType>(s: T) => z.preprocess(blankIsAbsent, s.optional());
@@ -17,8 +18,7 @@ export const auditFilterSchema = z
     from: opt(z.iso.date({ error: "from must be a date YYYY-MM-DD" })),
     to: opt(z.iso.date({ error: "to must be a date YYYY-MM-DD" })),
     page: z.preprocess(blankIsAbsent, z.coerce.number({ error: "page must be a whole number" }).int("page must be a whole number").min(1, "page starts at 1").max(100_000).default(1)),
-  })
-  .refine((f) => !f.from || !f.to || f.from <= f.to, { path: ["to"], message: "to must not be before from" });
+  });
 
 export type AuditFilterInput = z.output<typeof auditFilterSchema>;
 
@@ -31,7 +31,12 @@ export function parseAuditFilter(
     return Array.isArray(v) ? v[0] : (v ?? undefined);
   };
   const r = auditFilterSchema.safeParse(Object.fromEntries(["site", "entity", "channel", "actor", "from", "to", "page"].map((k) => [k, get(k)])));
-  return r.success ? { ok: true, filter: r.data } : { ok: false, issues: zodIssues(r.error.issues) };
+  const issues = r.success ? [] : zodIssues(r.error.issues);
+  // Checked beside the schema, not after it, so a bad range is reported together with any other mistake.
+  const from = get("from");
+  const to = get("to");
+  if (from && to && DAY.test(from) && DAY.test(to) && from > to) issues.push({ path: "to", message: "to must not be before from" });
+  return r.success && issues.length === 0 ? { ok: true, filter: r.data } : { ok: false, issues };
 }
 
 /** The filter back into a query string (without the page unless asked), for links and the CSV. */

@@ -66,6 +66,8 @@ describe("API tokens in settings (administrator)", () => {
     actAs(org.session("administrator"));
     const bad = await createSiteApiToken(null, form({ siteId: org.siteId, label: "  " }));
     expect(bad).toMatchObject({ ok: false, errors: { label: expect.stringContaining("label") } });
+    const twice = await createSiteApiToken(null, form({ siteId: org.siteId, label: "dcs HISTORIAN" }));
+    expect(twice).toMatchObject({ ok: false, errors: { label: expect.stringContaining("already labelled") } });
     actAs(org.session("process_engineer"));
     expect(await createSiteApiToken(null, form({ siteId: org.siteId, label: "x" }))).toEqual({ ok: false, message: "Your role does not allow you to manage API tokens." });
   });

@@ -87,8 +87,10 @@ describe("audit trail query and paging", () => {
     expect(pageTwo[0]).toMatchObject({ action: "reading.changed", siteName: expect.stringContaining("Audit works") });
   });
 
-  it("names the field of an impossible range", () => {
+  it("names the field of an impossible range, together with any other mistake", () => {
     expect(parseAuditFilter({ from: "2026-03-02", to: "2026-03-01" })).toEqual({ ok: false, issues: [{ path: "to", message: "to must not be before from" }] });
+    const both = parseAuditFilter({ from: "2026-03-02", to: "2026-03-01", channel: "fax" });
+    expect(both.ok ? [] : both.issues.map((i) => i.path)).toEqual(["channel", "to"]);
   });
 });
 
@@ -99,6 +101,10 @@ describe("before → after as a person reads it", () => {
       context: [{ field: "stream", value: "nh3" }, { field: "version", value: "2" }],
       unchanged: 2,
     });
+  });
+  it("reads a null field as empty: setting it is an addition, clearing it a removal", () => {
+    expect(eventDiff({ note: null, quantity: "1" }, { stream: "nh3", note: "gauge", quantity: "1" }).rows).toEqual([{ field: "note", before: null, after: "gauge", change: "added" }]);
+    expect(eventDiff({ note: "gauge" }, { note: null }).rows).toEqual([{ field: "note", before: "gauge", after: null, change: "removed" }]);
   });
   it("flattens nested values and marks additions and removals", () => {
     const d = eventDiff({ components: { CH4: "95.2", N2: "1" } }, { components: { CH4: "95.0", CO2: "1" } });

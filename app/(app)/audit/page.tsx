@@ -32,8 +32,8 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
     body = (
       <Notice tone="fault" title="Some filters are not valid">
         <ul className="list-inside list-disc text-sm">
-          {parsed.issues.map((i) => (
-            <li key={i.path}>{i.message}</li>
+          {parsed.issues.map((i, n) => (
+            <li key={`${i.path}-${n}`}>{i.message}</li>
           ))}
         </ul>
       </Notice>

@@ -2,7 +2,7 @@
 
 import { revalidatePath } from "next/cache";
 import { getDb } from "@/db";
-import { createApiToken, lockApiToken, revokeApiToken } from "@/db/queries/api-tokens";
+import { activeLabelTaken, createApiToken, lockApiToken, revokeApiToken } from "@/db/queries/api-tokens";
 import { recordAudit } from "@/db/queries/audit";
 import { findSite } from "@/db/queries/sites";
 import { newApiToken } from "@/lib/api/tokens";
@@ -29,6 +29,10 @@ export async function createSiteApiToken(_prev: ActionResult<CreatedToken> | nul
     return getDb().transaction(async (tx): Promise<ActionResult<CreatedToken>> => {
       const site = await findSite(tx, actor.organisationId, input.siteId);
       if (!site || site.archivedAt) return { ok: false, message: "Check the highlighted fields.", errors: { siteId: "That site is not one of your organisation's active sites; reload the page." } };
+      // The label is what the audit trail names as author, so two live tokens of a site must not share one.
+      if (await activeLabelTaken(tx, site.id, input.label)) {
+        return { ok: false, message: "Check the highlighted fields.", errors: { label: `An active token of ${site.name} is already labelled "${input.label}"; choose another label, or revoke that token first.` } };
+      }
       const { token, tokenHash, prefix } = newApiToken();
       const row = await createApiToken(tx, { organisationId: actor.organisationId, siteId: site.id, label: input.label, prefix, tokenHash, createdBy: actor.userId });
       await recordAudit(tx, {

@@ -21,7 +21,7 @@ export function CreateTokenForm({ sites, appUrl }: { sites: SiteChoice[]; appUrl
     <div className="space-y-4">
       {state?.ok && state.data ? <TokenSecret created={state.data} appUrl={appUrl} /> : null}
       {state && !state.ok ? <Notice tone="fault">{state.message}</Notice> : null}
-      <form action={action} noValidate className="flex flex-wrap items-end gap-4">
+      <form action={action} noValidate className="flex flex-wrap items-start gap-4">
         <div className="w-64">
           <label htmlFor="token-site" className={label}>
             Site
@@ -58,7 +58,7 @@ export function CreateTokenForm({ sites, appUrl }: { sites: SiteChoice[]; appUrl
           />
           <FieldError id="token-label-error" message={errors?.label} />
         </div>
-        <button type="submit" className={buttonPrimary} disabled={pending || sites.length === 0}>
+        <button type="submit" className={`${buttonPrimary} mt-6`} disabled={pending || sites.length === 0}>
           {pending ? "Creating…" : "Create token"}
         </button>
       </form>
