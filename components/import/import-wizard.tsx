@@ -1,5 +1,6 @@
 "use client";
 
+import { useRouter } from "next/navigation";
 import { useEffect, useRef, useState } from "react";
 import { Notice, Status } from "@/components/ui/status";
 import { buttonSecondary } from "@/components/ui/styles";
@@ -15,12 +16,12 @@ import { StepFile, sampleFile } from "./step-file";
 import type { FileSample, SavedMapping, WizardStream } from "./types";
 
 type Step = "file" | "columns" | "check" | "commit" | "done";
-const STEPS: { key: Step; label: string }[] = [
-  { key: "file", label: "File" },
-  { key: "columns", label: "Columns" },
-  { key: "check", label: "Check" },
-  { key: "commit", label: "Import" },
-  { key: "done", label: "Result" },
+const STEPS: { key: Step; label: string; heading: string }[] = [
+  { key: "file", label: "File", heading: "Choose the file" },
+  { key: "columns", label: "Columns", heading: "Say what each column holds" },
+  { key: "check", label: "Check", heading: "Check every row" },
+  { key: "commit", label: "Import", heading: "Import" },
+  { key: "done", label: "Result", heading: "Result" },
 ];
 
 interface Props {
@@ -45,6 +46,7 @@ export function ImportWizard({ siteId, streams, saved }: Props) {
   const [progress, setProgress] = useState<Partial<Record<Phase, Progress>>>({});
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<ApiError | null>(null);
+  const router = useRouter();
   const heading = useRef<HTMLHeadingElement>(null);
   const first = useRef(true);
 
@@ -79,11 +81,13 @@ export function ImportWizard({ siteId, streams, saved }: Props) {
     else {
       setResult(outcome.body as CommitBody);
       setStep("done");
+      // The page's own list of recent imports is server-rendered: fetch it again.
+      router.refresh();
     }
   }
 
   const index = STEPS.findIndex((s) => s.key === step);
-  const title = busy ? (step === "commit" ? "Importing…" : "Checking every row…") : STEPS[index].label;
+  const title = busy ? (step === "commit" ? "Importing…" : "Checking every row…") : STEPS[index].heading;
 
   return (
     <div className="space-y-5">

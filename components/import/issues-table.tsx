@@ -5,7 +5,7 @@ import { buttonSecondary } from "@/components/ui/styles";
 import { formatCount } from "@/lib/import/limits";
 import type { ImportIssue } from "@/lib/import/types";
 
-const PAGE = 100;
+const PAGE = 50;
 
 function csvCell(s: string): string {
   return /[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;

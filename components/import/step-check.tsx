@@ -80,6 +80,7 @@ export function StepCheck({ preview: p, streams, confirmReplace, onConfirmReplac
 
       {p.months.length ? (
         <div className="space-y-3">
+          {p.issues.length ? <h3 className="text-sm font-medium">What the readable rows add up to so far</h3> : null}
           {p.months.map((m) => (
             <MonthPlanTable key={m.month} month={m} streams={streams} />
           ))}
@@ -93,9 +94,14 @@ export function StepCheck({ preview: p, streams, confirmReplace, onConfirmReplac
         <button type="button" className={buttonSecondary} onClick={onColumns}>
           Change columns
         </button>
-        <button type="button" className={buttonPrimary} disabled={blocked} onClick={onCommit}>
+        <button type="button" className={buttonPrimary} disabled={blocked} onClick={onCommit} aria-describedby={blocked ? `${id}-why` : undefined}>
           Import {p.months.length} month{p.months.length === 1 ? "" : "s"}
         </button>
+        {blocked ? (
+          <p id={`${id}-why`} className="self-center text-sm text-ink-soft">
+            {p.issues.length ? "Fix the problems above first." : readOnly.length ? "A read-only month is in the file." : p.months.length === 0 ? "The file holds no values." : "Tick the re-import box above to go on."}
+          </p>
+        ) : null}
       </div>
     </div>
   );

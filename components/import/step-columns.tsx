@@ -11,6 +11,7 @@ import { SelectField } from "./select-field";
 import type { FileSample, WizardStream } from "./types";
 
 const DELIMITER_LABELS: Record<string, string> = { auto: "Detect from the header", ",": "Comma ,", ";": "Semicolon ;", "\t": "Tab", "|": "Vertical bar |" };
+const DELIMITER_WORDS: Record<string, string> = { ",": "comma", ";": "semicolon", "\t": "tab", "|": "vertical bar" };
 const THOUSANDS_LABELS: Record<string, string> = { none: "None (refuse 1,234)", ",": "Comma 1,234", ".": "Dot 1.234", " ": "Space 1 234", "'": "Apostrophe 1'234" };
 
 function switchLayout(m: ImportMappingInput, layout: ImportLayout): ImportMappingInput {
@@ -76,7 +77,7 @@ export function StepColumns({ sample, mapping, from, streams, onChange, onDelimi
       </fieldset>
 
       <div className="grid gap-4 sm:grid-cols-3">
-        <SelectField text="Delimiter" value={mapping.delimiter ?? "auto"} options={DELIMITERS.map((d) => ({ value: d, label: DELIMITER_LABELS[d] }))} onChange={(v) => onDelimiter(v as (typeof DELIMITERS)[number])} hint={`Read as ${DELIMITER_LABELS[sample.delimiter] ?? sample.delimiter}: ${sample.headers.length} columns.`} />
+        <SelectField text="Delimiter" value={mapping.delimiter ?? "auto"} options={DELIMITERS.map((d) => ({ value: d, label: DELIMITER_LABELS[d] }))} onChange={(v) => onDelimiter(v as (typeof DELIMITERS)[number])} hint={`Read as ${DELIMITER_WORDS[sample.delimiter] ?? sample.delimiter}-separated: ${sample.headers.length} columns.`} />
         <SelectField text="Date column" value={mapping.dateColumn} options={headerOptions} error={errors.dateColumn} onChange={(v) => set({ ...mapping, dateColumn: v })} />
         <SelectField
           text="Date format"

@@ -12,8 +12,14 @@ export function StepDone({ result: r, siteId, onRestart }: { result: CommitBody;
     <div className="space-y-4">
       <Notice tone="ok" title={`Imported ${r.fileName}`}>
         <p>
-          <span className="num">{formatCount(r.rowCount)}</span> rows, <span className="num">{r.changed}</span> figure{r.changed === 1 ? "" : "s"} changed, on{" "}
-          {formatDateTime(new Date(r.importedAt))}. Every change is in the audit trail under the channel &ldquo;import&rdquo;.
+          <span className="num">{formatCount(r.rowCount)}</span> rows on {formatDateTime(new Date(r.importedAt))}.{" "}
+          {r.changed === 0 ? (
+            "The months already held exactly these figures, so none changed; the import itself is recorded in the audit trail."
+          ) : (
+            <>
+              <span className="num">{r.changed}</span> figure{r.changed === 1 ? "" : "s"} changed; every change is in the audit trail under the channel &ldquo;import&rdquo;.
+            </>
+          )}
           {r.replaced ? ` This replaces the import of ${formatDateTime(new Date(r.replaced.importedAt))}.` : ""}
         </p>
       </Notice>
