@@ -26,8 +26,8 @@ const errorCodes: Record<string, string> = {
 };
 
 /** The responses of one operation: its success plus the error bodies that can happen. */
-export function responses(ok: Json, errors: string[]) {
-  const out: Json = { "200": ok };
+export function responses(ok: Json, errors: string[], status = "200") {
+  const out: Json = { [status]: ok };
   for (const code of errors) out[code] = { description: errorCodes[code], content: { "application/json": { schema: ref("Error") } } };
   return out;
 }

@@ -1,21 +1,10 @@
+import { otherPaths } from "./openapi-others";
 import { body, json, params, ref, responses, schemas } from "./openapi-parts";
 
 const site = [params.siteId];
 const month = [params.siteId, params.month];
 const asPerson = [{ session: [] }];
 const personOrToken = [{ session: [] }, { siteToken: [] }];
-const csvUpload = {
-  required: true,
-  content: {
-    "multipart/form-data": {
-      schema: {
-        type: "object",
-        required: ["file", "mapping"],
-        properties: { file: { type: "string", format: "binary" }, mapping: { type: "string", description: "column mapping as JSON text" }, confirmReplace: { enum: ["true"] } },
-      },
-    },
-  },
-};
 const plantFile = { required: true, content: { "application/json": { schema: ref("PlantMonth") } } };
 
 /**
@@ -42,6 +31,7 @@ export const openApiDocument = {
     schemas,
   },
   paths: {
+    ...otherPaths,
     "/api/v1/sites": {
       get: { summary: "Active sites of your organisation", responses: responses(json({ type: "object", properties: { sites: { type: "array", items: ref("Site") } } }), ["401", "403"]) },
     },
@@ -103,27 +93,6 @@ export const openApiDocument = {
         summary: "Import a plant-month file: its readings and analyses are saved in one transaction (process engineer)",
         parameters: [...month, { name: "expectedVersion", in: "query", required: false, schema: { type: "integer", minimum: 0 } }],
         requestBody: plantFile,
-        responses: responses(json(ref("Saved")), ["400", "401", "403", "404", "409", "413"]),
-      },
-    },
-    "/api/v1/sites/{siteId}/imports": {
-      get: { summary: "Recent CSV import batches and saved column mappings of the site", parameters: site, responses: responses(json({ type: "object", properties: { batches: { type: "array", items: { type: "object" } }, mappings: { type: "array", items: { type: "object" } } } }), ["401", "403", "404"]) },
-    },
-    "/api/v1/sites/{siteId}/imports/preview": {
-      post: {
-        summary: "Check a CSV file against the site without writing: bad rows and cells, monthly totals beside the current ones (process engineer)",
-        description: "Send Accept: application/x-ndjson for progress lines.",
-        parameters: site,
-        requestBody: csvUpload,
-        responses: responses(json({ type: "object" }), ["400", "401", "403", "404", "413"]),
-      },
-    },
-    "/api/v1/sites/{siteId}/imports/commit": {
-      post: {
-        summary: "Validate the CSV file again and write it in one transaction, or refuse it whole (process engineer)",
-        description: "409 already_imported for a file imported before (send confirmReplace=true to replace), 409 month_read_only naming the months.",
-        parameters: site,
-        requestBody: csvUpload,
         responses: responses(json(ref("Saved")), ["400", "401", "403", "404", "409", "413"]),
       },
     },

@@ -1,0 +1,67 @@
+/**
+ * Paths of the v1 routes built beside the core API (CSV import, attachments, statements,
+ * verification), kept apart so openapi.ts stays readable. Their behaviour is described from the
+ * route handlers; the coverage test fails when a new route file appears without a path here.
+ */
+import { json, params, ref, responses } from "./openapi-parts";
+
+const site = [params.siteId];
+const month = [params.siteId, params.month];
+const idParam = (name: string, description: string) => ({ name, in: "path", required: true, description, schema: { type: "string", format: "uuid" } });
+const upload = (fields: Record<string, unknown>, required: string[]) => ({
+  required: true,
+  content: { "multipart/form-data": { schema: { type: "object", required, properties: { file: { type: "string", format: "binary" }, ...fields } } } },
+});
+const csvUpload = upload({ mapping: { type: "string", description: "column mapping as JSON text" }, confirmReplace: { enum: ["true"] } }, ["file", "mapping"]);
+const download = (mediaType: string, description: string) => ({
+  description,
+  headers: { "Content-Disposition": { schema: { type: "string" } } },
+  content: { [mediaType]: { schema: { type: "string", format: "binary" } } },
+});
+
+export const otherPaths = {
+  "/api/v1/sites/{siteId}/imports": {
+    get: { summary: "Recent CSV import batches and saved column mappings of the site", parameters: site, responses: responses(json({ type: "object", properties: { batches: { type: "array", items: { type: "object" } }, mappings: { type: "array", items: { type: "object" } } } }), ["401", "403", "404"]) },
+  },
+  "/api/v1/sites/{siteId}/imports/preview": {
+    post: {
+      summary: "Check a CSV file against the site without writing: bad rows and cells, monthly totals beside the current ones (process engineer)",
+      description: "Send Accept: application/x-ndjson for progress lines.",
+      parameters: site,
+      requestBody: csvUpload,
+      responses: responses(json({ type: "object" }), ["400", "401", "403", "404", "413"]),
+    },
+  },
+  "/api/v1/sites/{siteId}/imports/commit": {
+    post: {
+      summary: "Validate the CSV file again and write it in one transaction, or refuse it whole (process engineer)",
+      description: "409 already_imported for a file imported before (send confirmReplace=true to replace), 409 month_read_only naming the months.",
+      parameters: site,
+      requestBody: csvUpload,
+      responses: responses(json(ref("Saved")), ["400", "401", "403", "404", "409", "413"]),
+    },
+  },
+  "/api/v1/sites/{siteId}/months/{month}/attachments": {
+    get: { summary: "Attachments of the month (metadata, download link, whether you may delete each)", parameters: month, responses: responses(json({ type: "object", properties: { attachments: { type: "array", items: { type: "object" } } } }), ["400", "401", "404"]) },
+    post: {
+      summary: "Attach a certificate or invoice to the month, or to one of its streams",
+      parameters: month,
+      requestBody: upload({ category: { enum: ["lab-certificate", "calibration-certificate", "invoice", "other"] }, stream: { type: "string", description: "stream key (optional)" } }, ["file", "category"]),
+      responses: responses(json({ type: "object", properties: { attachment: { type: "object" } } }, "attached"), ["400", "401", "404", "409", "413"], "201"),
+    },
+  },
+  "/api/v1/attachments/{attachmentId}": {
+    get: { summary: "Download an attachment (always as a file, type detected at upload)", parameters: [idParam("attachmentId", "attachment id")], responses: responses(download("application/octet-stream", "the file"), ["401", "404"]) },
+    delete: { summary: "Delete an attachment (uploader or administrator, while the month is not signed)", parameters: [idParam("attachmentId", "attachment id")], responses: responses({ description: "deleted" }, ["401", "403", "404", "409"], "204") },
+  },
+  "/api/v1/statements/{id}/pdf": {
+    get: { summary: "The signed statement PDF exactly as signed (any member)", parameters: [idParam("id", "statement id")], responses: responses(download("application/pdf", "the signed PDF (X-Content-SHA256 header)"), ["401", "404"]) },
+  },
+  "/api/v1/verify": {
+    post: {
+      summary: "Check a PDF against the organisation's signed statements: issued, altered or unknown (any member; nothing stored)",
+      requestBody: { required: true, content: { "multipart/form-data": { schema: { type: "object", required: ["file"], properties: { file: { type: "string", format: "binary" } } } }, "application/pdf": { schema: { type: "string", format: "binary" } } } },
+      responses: responses(json({ type: "object" }), ["400", "401", "413"]),
+    },
+  },
+};
