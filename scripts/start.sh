@@ -37,8 +37,8 @@ fi
 if pid_alive "$RUN_DIR/mail-sink.pid"; then
   log "mail sink already running"
 else
-  (cd "$ROOT" && setsid node_modules/.bin/tsx scripts/mail-sink.ts --smtp-port "$SMTP_PORT" --http-port "$MAIL_VIEW_PORT" \
-    --dir "$RUN_DIR/mail" >"$RUN_DIR/mail-sink.log" 2>&1 & echo $! >"$RUN_DIR/mail-sink.pid")
+  start_detached "$RUN_DIR/mail-sink.pid" "$RUN_DIR/mail-sink.log" node_modules/.bin/tsx scripts/mail-sink.ts \
+    --smtp-port "$SMTP_PORT" --http-port "$MAIL_VIEW_PORT" --dir "$RUN_DIR/mail"
   wait_for_http "http://127.0.0.1:$MAIL_VIEW_PORT/api/messages" || die "mail sink did not start (see .run/mail-sink.log)"
   log "mail sink: SMTP 127.0.0.1:$SMTP_PORT, messages at http://127.0.0.1:$MAIL_VIEW_PORT"
 fi
@@ -48,7 +48,7 @@ if pid_alive "$RUN_DIR/app.pid"; then
   exit 0
 fi
 build_if_stale
-(cd "$ROOT" && PORT="$PORT" NODE_ENV=production setsid node node_modules/next/dist/bin/next start -H "${HOST:-0.0.0.0}" -p "$PORT" \
-  >"$RUN_DIR/app.log" 2>&1 & echo $! >"$RUN_DIR/app.pid")
+PORT="$PORT" NODE_ENV=production start_detached "$RUN_DIR/app.pid" "$RUN_DIR/app.log" \
+  node node_modules/next/dist/bin/next start -H "${HOST:-0.0.0.0}" -p "$PORT"
 wait_for_http "http://127.0.0.1:$PORT/sign-in" 150 || { tail -n 30 "$RUN_DIR/app.log" >&2; die "the app did not answer on port $PORT"; }
 log "Synledger is running at $APP_URL  (demo accounts: README.md; 'npm run stop' stops everything)"

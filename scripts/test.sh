@@ -41,8 +41,8 @@ export NEXT_TELEMETRY_DISABLED=1
 node_modules/.bin/tsx db/migrate.ts || die "migrations failed"
 node_modules/.bin/tsx db/seed.ts || die "seeding failed"
 
-(setsid node_modules/.bin/tsx scripts/mail-sink.ts --smtp-port "$TEST_SMTP_PORT" --http-port "$TEST_MAIL_VIEW_PORT" \
-  --dir "$TEST_RUN/mail" >"$TEST_RUN/mail-sink.log" 2>&1 & echo $! >"$TEST_RUN/mail-sink.pid")
+start_detached "$TEST_RUN/mail-sink.pid" "$TEST_RUN/mail-sink.log" node_modules/.bin/tsx scripts/mail-sink.ts \
+  --smtp-port "$TEST_SMTP_PORT" --http-port "$TEST_MAIL_VIEW_PORT" --dir "$TEST_RUN/mail"
 wait_for_http "$MAIL_VIEW_URL/api/messages" || die "test mail sink did not start"
 
 passed=0
@@ -71,8 +71,8 @@ log "── next build + browser tests"
 export NEXT_DIST_DIR=".next-test"
 if (NODE_ENV=production node node_modules/next/dist/bin/next build >"$RESULTS/build.log" 2>&1); then
   passed=$((passed + 1))
-  (NODE_ENV=production setsid node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$TEST_PORT" \
-    >"$RESULTS/app.log" 2>&1 & echo $! >"$TEST_RUN/app.pid")
+  NODE_ENV=production start_detached "$TEST_RUN/app.pid" "$RESULTS/app.log" \
+    node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$TEST_PORT"
   if wait_for_http "$APP_URL/sign-in" 150; then
     E2E_BASE_URL="$APP_URL" node_modules/.bin/tsx tests/e2e/run.ts 2>&1 | tee "$RESULTS/e2e.log"
     line=$(grep -E '^e2e: [0-9]+ passed, [0-9]+ failed' "$RESULTS/e2e.log" | tail -n 1 || true)
