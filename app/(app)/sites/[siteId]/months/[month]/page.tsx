@@ -1,12 +1,17 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
-import { EmptyState } from "@/components/ui/empty-state";
+import { MonthEntryForm } from "@/components/month/month-entry-form";
+import { monthEntryProps } from "@/components/month/month-entry-props";
 import { formatDateTime, formatMonth, isMonthKey } from "@/components/ui/format";
 import { MonthStateBadge } from "@/components/ui/month-state";
 import { pageTitle } from "@/components/ui/styles";
 import { getDb } from "@/db";
-import { findMonth, findSite } from "@/db/queries/sites";
+import { loadMonthBundle, methodOf } from "@/db/queries/months";
+import { previousAnalyses } from "@/db/queries/streams";
 import { can, requirePageActor } from "@/lib/auth/guard";
+import { ROLE_LABELS } from "@/lib/auth/roles";
+import { READ_ONLY_STATES } from "@/lib/ledger/save-month";
+import { EMISSIONS_METHOD_LABELS, METERING_REFERENCE_LABELS } from "@/lib/validations/site";
 
 type Params = { siteId: string; month: string };
 
@@ -16,20 +21,31 @@ export async function generateMetadata({ params }: { params: Promise<Params> }):
 }
 
 /**
- * One site's month. The site must belong to the signed-in organisation: anything else is a
- * plain 404, so the page never tells whether another organisation's site exists.
+ * One site's month: the entry form for process engineers, the same figures read-only for
+ * everyone else. Another organisation's site is a plain 404, so its existence is not revealed.
  */
 export default async function MonthPage({ params }: { params: Promise<Params> }) {
   const { siteId, month } = await params;
   const actor = await requirePageActor();
   if (!isMonthKey(month)) notFound();
   const db = getDb();
-  const site = await findSite(db, actor.organisationId, siteId);
-  if (!site) notFound();
-  const record = await findMonth(db, site.id, month);
+  const bundle = await loadMonthBundle(db, actor.organisationId, siteId, month);
+  if (!bundle) notFound();
+  const { site, month: record } = bundle;
+  const previous = await previousAnalyses(db, site.id, month);
+
+  let readOnlyReason: string | null = null;
+  if (record && (READ_ONLY_STATES as readonly string[]).includes(record.state)) {
+    readOnlyReason = `${formatMonth(month)} is ${record.state.replace("_", " ")}, so its figures are frozen. Correcting them means reopening the month with a written reason, which starts a new revision.`;
+  } else if (!can(actor, "month:enter")) {
+    readOnlyReason = `You are signed in as ${actor.roles.map((r) => ROLE_LABELS[r]).join(" and ")}: the site's process engineers enter these figures, and you see them as they are saved.`;
+  } else if (site.archivedAt) {
+    readOnlyReason = `${site.name} is archived: its months can be read but no longer changed.`;
+  }
+  const props = monthEntryProps(bundle, previous);
 
   return (
-    <div className="space-y-6">
+    <div className="space-y-5">
       <div className="flex flex-wrap items-end justify-between gap-3">
         <div>
           <p className="text-sm text-ink-soft">
@@ -41,45 +57,42 @@ export default async function MonthPage({ params }: { params: Promise<Params> })
           <MonthStateBadge state={record?.state ?? null} />
           {record ? (
             <p className="num mt-0.5 text-xs text-ink-soft">
-              rev. {record.revision} · changed {formatDateTime(record.updatedAt)}
+              rev. {record.revision} · version {record.version} · changed {formatDateTime(record.updatedAt)}
             </p>
           ) : null}
         </div>
       </div>
 
-      <dl className="grid max-w-3xl grid-cols-2 gap-x-6 gap-y-1 border border-rule bg-white px-4 py-3 text-sm sm:grid-cols-4">
+      <dl className="grid grid-cols-2 gap-x-6 gap-y-1 border border-rule bg-white px-4 py-2.5 text-sm sm:grid-cols-4">
         <div>
           <dt className="text-xs text-ink-soft">Metering reference</dt>
-          <dd className="num">{site.meteringReference === "60F" ? "60 °F (scf)" : site.meteringReference === "0C" ? "0 °C (Nm3)" : "15 °C (Sm3)"}</dd>
+          <dd className="num">{METERING_REFERENCE_LABELS[site.meteringReference]}</dd>
         </div>
         <div>
-          <dt className="text-xs text-ink-soft">Closure tolerance</dt>
-          <dd className="num">{site.closureTolerancePct} %</dd>
+          <dt className="text-xs text-ink-soft">Balance tolerance</dt>
+          <dd className="num">±{site.closureTolerancePct} %</dd>
         </div>
         <div>
           <dt className="text-xs text-ink-soft">Emissions method</dt>
-          <dd>{site.emissionsMethod}</dd>
+          <dd>{EMISSIONS_METHOD_LABELS[methodOf(bundle).emissions as keyof typeof EMISSIONS_METHOD_LABELS] ?? methodOf(bundle).emissions}</dd>
         </div>
         <div>
           <dt className="text-xs text-ink-soft">Factor set · GWP</dt>
-          <dd>
-            {site.factorSet} · {site.gwp}
+          <dd className="num">
+            {methodOf(bundle).factor_set} · {methodOf(bundle).gwp}
           </dd>
         </div>
       </dl>
 
-      <EmptyState title={record ? "No figures on this page yet" : "Nothing entered for this month yet"}>
-        <p>
-          This page will hold the month&rsquo;s meter totals and gas analyses, the carbon, hydrogen and nitrogen balances drawn as
-          beams around zero with their tolerance band, the meter most likely to be wrong, and the month&rsquo;s CO2, CH4 and N2O
-          with the CO2e intensity per tonne of ammonia.
-        </p>
-        <p>
-          {can(actor, "month:enter")
-            ? "As a process engineer you will enter or import the figures here."
-            : "The process engineers of the site enter the figures; you will see them here as they arrive."}
-        </p>
-      </EmptyState>
+      <MonthEntryForm
+        key={`${site.id}/${month}`}
+        siteId={site.id}
+        period={month}
+        version={record?.version ?? 0}
+        context={{ siteName: site.name, period: month, method: methodOf(bundle), tolerancePct: site.closureTolerancePct }}
+        readOnlyReason={readOnlyReason}
+        {...props}
+      />
     </div>
   );
 }
