@@ -42,9 +42,10 @@ export async function outcomeOf(result: unknown): Promise<Outcome> {
   }
   if (result && typeof result === "object" && "message" in result && (result as { ok?: boolean }).ok !== true) {
     const message = String((result as { message: unknown }).message);
+    const errors = Object.values((result as { errors?: Record<string, string> }).errors ?? {}).join(" ");
     if (/^Sign in first/.test(message)) return "unauthorized";
     if (/^Your role does not allow/.test(message)) return "forbidden";
-    if (/not found|not a member of your organisation/i.test(message)) return "not-found";
+    if (/not found|not (a member|one) of your organisation/i.test(`${message} ${errors}`)) return "not-found";
   }
   return "allowed";
 }

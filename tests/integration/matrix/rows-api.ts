@@ -1,0 +1,117 @@
+import { randomUUID } from "node:crypto";
+import { recordAudit } from "@/db/queries/audit";
+import { apiTokens, months } from "@/db/schema";
+import { ROLES } from "@/lib/auth/roles";
+import type { MatrixContext, MatrixRow } from "./types";
+
+/** Rows of the REST API v1 read/write routes, the audit export and the API-token actions. */
+const MONTH = "2026-03";
+const req = (method: string, body?: string) =>
+  new Request("http://matrix/", { method, body, headers: body ? { "content-type": "application/json" } : undefined });
+const params = <P>(p: P) => ({ params: Promise.resolve(p) });
+const site = ({ target }: MatrixContext) => ({ siteId: target.siteId });
+const month = (ctx: MatrixContext) => ({ ...site(ctx), month: MONTH });
+const form = (fields: Record<string, string>) => {
+  const fd = new FormData();
+  for (const [k, v] of Object.entries(fields)) fd.set(k, v);
+  return fd;
+};
+const PLANT_MONTH = JSON.stringify({
+  format: "synledger.plant-month/1",
+  site: "Matrix",
+  month: MONTH,
+  analyses: {},
+  streams: [{ id: "nh3", kind: "ammonia", quantity: "100", unit: "t" }],
+  method: { emissions: "carbon-mass-balance", factor_set: "ipcc-2006", gwp: "AR5" },
+});
+
+/** Result and export need the month to exist (an unknown month is a 404 of its own). */
+async function withMonth(ctx: MatrixContext) {
+  await ctx.db.insert(months).values({ siteId: ctx.target.siteId, period: MONTH }).onConflictDoNothing();
+  return month(ctx);
+}
+
+/** A list answer shows nothing of the target organisation when its ids and name are absent. */
+async function mentionsNothingOf(result: unknown, { target }: MatrixContext): Promise<boolean> {
+  const text = await (result as Response).clone().text();
+  return !text.includes(target.siteId) && !text.includes(target.id) && !text.includes(target.name);
+}
+
+export const apiRows: MatrixRow[] = [
+  {
+    id: "GET /api/v1/sites",
+    allowed: ROLES,
+    call: async () => (await import("@/app/api/v1/sites/route")).GET(req("GET"), params({})),
+    crossOrgSeesNothing: mentionsNothingOf,
+  },
+  { id: "GET /api/v1/sites/[siteId]", allowed: ROLES, call: async (c) => (await import("@/app/api/v1/sites/[siteId]/route")).GET(req("GET"), params(site(c))) },
+  { id: "GET /api/v1/sites/[siteId]/streams", allowed: ROLES, call: async (c) => (await import("@/app/api/v1/sites/[siteId]/streams/route")).GET(req("GET"), params(site(c))) },
+  { id: "GET /api/v1/sites/[siteId]/months", allowed: ROLES, call: async (c) => (await import("@/app/api/v1/sites/[siteId]/months/route")).GET(req("GET"), params(site(c))) },
+  { id: "GET /api/v1/sites/[siteId]/months/[month]", allowed: ROLES, call: async (c) => (await import("@/app/api/v1/sites/[siteId]/months/[month]/route")).GET(req("GET"), params(month(c))) },
+  {
+    id: "PUT /api/v1/sites/[siteId]/months/[month]",
+    allowed: ["process_engineer"],
+    call: async (c) => (await import("@/app/api/v1/sites/[siteId]/months/[month]/route")).PUT(req("PUT", JSON.stringify({ expectedVersion: 0, readings: [] })), params(month(c))),
+  },
+  {
+    // The fixture site has no streams, so an allowed call ends in 400 (unknown stream): past the gate.
+    id: "PUT /api/v1/sites/[siteId]/months/[month]/readings/[stream]",
+    allowed: ["process_engineer"],
+    call: async (c) =>
+      (await import("@/app/api/v1/sites/[siteId]/months/[month]/readings/[stream]/route")).PUT(
+        req("PUT", JSON.stringify({ quantity: "1", unit: "t" })),
+        params({ ...month(c), stream: "nh3" }),
+      ),
+  },
+  { id: "GET /api/v1/sites/[siteId]/months/[month]/analyses", allowed: ROLES, call: async (c) => (await import("@/app/api/v1/sites/[siteId]/months/[month]/analyses/route")).GET(req("GET"), params(month(c))) },
+  {
+    id: "PUT /api/v1/sites/[siteId]/months/[month]/analyses/[key]",
+    allowed: ["process_engineer"],
+    call: async (c) =>
+      (await import("@/app/api/v1/sites/[siteId]/months/[month]/analyses/[key]/route")).PUT(
+        req("PUT", JSON.stringify({ components: { CH4: "95", C2H6: "3", N2: "1", CO2: "1" } })),
+        params({ ...month(c), key: "grid-gas" }),
+      ),
+  },
+  { id: "GET /api/v1/sites/[siteId]/months/[month]/result", allowed: ROLES, call: async (c) => (await import("@/app/api/v1/sites/[siteId]/months/[month]/result/route")).GET(req("GET"), params(await withMonth(c))) },
+  { id: "GET /api/v1/sites/[siteId]/months/[month]/export", allowed: ROLES, call: async (c) => (await import("@/app/api/v1/sites/[siteId]/months/[month]/export/route")).GET(req("GET"), params(await withMonth(c))) },
+  {
+    id: "POST /api/v1/sites/[siteId]/months/[month]/import",
+    allowed: ["process_engineer"],
+    call: async (c) => (await import("@/app/api/v1/sites/[siteId]/months/[month]/import/route")).POST(req("POST", PLANT_MONTH), params(month(c))),
+  },
+  {
+    id: "POST /api/v1/calculate",
+    allowed: ROLES,
+    call: async () => (await import("@/app/api/v1/calculate/route")).POST(req("POST", PLANT_MONTH), params({})),
+    // Stateless: it reads nothing stored, so the answer can only hold what the caller sent.
+    crossOrgSeesNothing: mentionsNothingOf,
+  },
+  {
+    id: "GET /api/v1/audit/export",
+    allowed: ROLES,
+    async call({ db, target }) {
+      await recordAudit(db, { organisationId: target.id, actorLabel: `marker ${target.id}`, channel: "system", action: "matrix.marker", entity: "matrix" });
+      return (await import("@/app/api/v1/audit/export/route")).GET(new Request("http://matrix/api/v1/audit/export"), params({}));
+    },
+    crossOrgSeesNothing: mentionsNothingOf,
+  },
+  { id: "GET /api/v1/openapi.json", allowed: "public", call: async () => (await import("@/app/api/v1/openapi.json/route")).GET() },
+  {
+    id: "app/(app)/settings/api-tokens/actions.ts#createSiteApiToken",
+    allowed: ["administrator"],
+    call: async ({ target }) =>
+      (await import("@/app/(app)/settings/api-tokens/actions")).createSiteApiToken(null, form({ siteId: target.siteId, label: `matrix ${randomUUID().slice(0, 6)}` })),
+  },
+  {
+    id: "app/(app)/settings/api-tokens/actions.ts#revokeSiteApiToken",
+    allowed: ["administrator"],
+    async call({ db, target }) {
+      const [t] = await db
+        .insert(apiTokens)
+        .values({ organisationId: target.id, siteId: target.siteId, label: "matrix", prefix: "syl_matrix", tokenHash: randomUUID() })
+        .returning();
+      return (await import("@/app/(app)/settings/api-tokens/actions")).revokeSiteApiToken(null, form({ tokenId: t.id }));
+    },
+  },
+];
