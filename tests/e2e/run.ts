@@ -8,6 +8,7 @@ import { mkdirSync } from "node:fs";
 import { randomBytes } from "node:crypto";
 import { chromium, type Browser, type Page } from "playwright-core";
 import { DEMO_USERS } from "../../db/demo-users";
+import { runMonthEntry } from "./month-entry";
 
 const BASE = (process.env.E2E_BASE_URL ?? "http://127.0.0.1:3000").replace(/\/+$/, "");
 const OUT = "test-results/e2e";
@@ -153,6 +154,8 @@ async function main(): Promise<void> {
       await auditorPage.goto(`${BASE}/audit`);
       await auditorPage.waitForURL(/\/sign-in/);
     });
+
+    await runMonthEntry(browser, { base: BASE, viewport, check, assert, shot, signIn });
   } finally {
     await browser.close();
   }
