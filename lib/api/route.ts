@@ -2,6 +2,7 @@ import "server-only";
 import { assertCan, errorResponse } from "@/lib/auth/guard";
 import { HttpError, unauthorized } from "@/lib/auth/errors";
 import type { Permission } from "@/lib/auth/roles";
+import { assertSameOrigin } from "@/lib/auth/same-origin";
 import { apiActor, type ApiCaller } from "./actor";
 
 /**
@@ -46,7 +47,11 @@ export function v1Route<P extends Record<string, string> = Record<string, string
       if (!caller) throw unauthorized();
       const params = await ctx.params;
       if (caller.kind === "token") checkToken(caller, rule, params);
-      else assertCan(caller.actor, rule.permission, rule.what);
+      else {
+        assertCan(caller.actor, rule.permission, rule.what);
+        // A cookie rides along with cross-site requests; a bearer token never does, so only sessions are checked.
+        assertSameOrigin(req);
+      }
       return await handler(req, caller, params);
     } catch (err) {
       const res = errorResponse(err);

@@ -7,6 +7,7 @@ import { getDb } from "@/db";
 import { membership } from "@/db/queries/users";
 import { HttpError, forbidden, unauthorized, zodIssues } from "./errors";
 import { isRole, rolesGrant, type Permission, type Role } from "./roles";
+import { assertSameOrigin } from "./same-origin";
 
 /** Who is acting, with the roles held in the active organisation as the database has them now. */
 export interface Actor {
@@ -78,8 +79,9 @@ export function errorResponse(err: unknown): NextResponse {
 type RouteContext<P> = { params: Promise<P> };
 
 /**
- * Wraps a route handler: 401 without a session, 403 without the permission, JSON errors with
- * paths for bad input. The handler gets the actor and must scope every query to its organisation.
+ * Wraps a route handler: 401 without a session, 403 without the permission or for a cross-site
+ * mutation (lib/auth/same-origin.ts), JSON errors with paths for bad input. The handler gets
+ * the actor and must scope every query to its organisation.
  */
 export function apiRoute<P = Record<string, string>>(
   permission: Permission,
@@ -90,6 +92,8 @@ export function apiRoute<P = Record<string, string>>(
     try {
       const actor = await currentActor();
       assertCan(actor, permission, what);
+      // These handlers know only the session cookie, so a mutation must come from our own pages.
+      assertSameOrigin(req);
       return await handler(req, actor, await ctx.params);
     } catch (err) {
       return errorResponse(err);
