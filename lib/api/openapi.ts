@@ -106,6 +106,9 @@ export const openApiDocument = {
         responses: responses({ description: "CSV with a header row", content: { "text/csv": { schema: { type: "string" } } } }, ["400", "401", "403"]),
       },
     },
+    "/api/v1/health": {
+      get: { summary: "Liveness for load balancers: {ok:true}, no session, no database", security: [], responses: { "200": json({ type: "object", properties: { ok: { const: true } } }) } },
+    },
     "/api/v1/openapi.json": {
       get: { summary: "This description", security: [], responses: { "200": json({ type: "object" }) } },
     },
