@@ -26,6 +26,11 @@ export class JsonSyntaxError extends Error {
 
 const NUMBER = /-?(?:0|[1-9]\d*)(?:\.\d+)?(?:[eE][+-]?\d+)?/y;
 const ESCAPES: Record<string, string> = { '"': '"', "\\": "\\", "/": "/", b: "\b", f: "\f", n: "\n", r: "\r", t: "\t" };
+/**
+ * Deepest nesting accepted. A plant-month is five levels deep; the reader recurses per level, so
+ * without a bound a body of "[[[[…" would overflow the stack (a RangeError, not a JSON error).
+ */
+export const MAX_JSON_DEPTH = 256;
 
 /** Parses JSON text; numbers become JsonNumber (literal kept), everything else as JSON.parse. */
 export function readJson(text: string): JsonValue {
@@ -69,7 +74,17 @@ export function readJson(text: string): JsonValue {
     }
   };
 
+  let depth = 0;
   const readValue = (): JsonValue => {
+    if (++depth > MAX_JSON_DEPTH) fail(`nested deeper than ${MAX_JSON_DEPTH} levels`);
+    try {
+      return readNested();
+    } finally {
+      depth--;
+    }
+  };
+
+  const readNested = (): JsonValue => {
     skip();
     const ch = text[i];
     if (ch === "{") {
