@@ -15,7 +15,7 @@ const cell = "border border-rule-strong bg-white px-2 py-1 text-sm aria-[invalid
  * One gas analysis: components in mol % (dry), the running sum, and what the engine will do
  * with it — use as is, normalise (within 0.5 of 100, with the normalised values shown) or refuse.
  */
-export function AnalysisEditor({ index, usedBy, previous, first }: { index: number; usedBy: string[]; previous?: { period: string; components: Record<string, string> }; first: boolean }) {
+export function AnalysisEditor({ index, usedBy, previous, first, readOnly }: { index: number; usedBy: string[]; previous?: { period: string; components: Record<string, string> }; first: boolean; readOnly: boolean }) {
   const { control, register, formState } = useFormContext<MonthFormValues>();
   const { fields, append, remove, replace } = useFieldArray({ control, name: `analyses.${index}.components` });
   const key = useWatch({ control, name: `analyses.${index}.key` });
@@ -45,7 +45,7 @@ export function AnalysisEditor({ index, usedBy, previous, first }: { index: numb
           mol %, dry{usedBy.length ? <> · used by <span className="num">{usedBy.join(", ")}</span></> : " · used by no active stream"}
         </span>
       </div>
-      {previous && s.status === "empty" ? (
+      {previous && s.status === "empty" && !readOnly ? (
         <p className="mt-2 text-sm">
           <button
             type="button"
@@ -85,15 +85,16 @@ export function AnalysisEditor({ index, usedBy, previous, first }: { index: numb
                     aria-invalid={cErr ? true : undefined}
                     aria-describedby={cErr ? `${id(ci)}-error` : undefined}
                     onKeyDown={onKeyDown(ci)}
+                    defaultValue={f.value}
                     {...register(`analyses.${index}.components.${ci}.value`)}
                   />
                   <FieldError id={`${id(ci)}-error`} message={cErr} />
                 </td>
                 <td className="num px-2 py-1 text-right text-ink-soft">{norm ? formatDecimal(norm, 3) : ""}</td>
                 <td className="py-1 text-right">
-                  <button type="button" onClick={() => remove(ci)} className="px-1 text-xs text-ink-soft underline hover:text-ink" aria-label={`Remove ${f.component}`}>
+                  {readOnly ? null : <button type="button" onClick={() => remove(ci)} className="px-1 text-xs text-ink-soft underline hover:text-ink" aria-label={`Remove ${f.component}`}>
                     remove
-                  </button>
+                  </button>}
                 </td>
               </tr>
             );
@@ -118,7 +119,7 @@ export function AnalysisEditor({ index, usedBy, previous, first }: { index: numb
           The sum is within {SUM_TOLERANCE_TEXT} of 100: the engine scales each component by 100 / {formatDecimal(s.total, 3)} and flags it. The figures you typed are what is saved.
         </p>
       ) : null}
-      <div className="mt-2 flex flex-wrap items-end gap-2">
+      <div className={`mt-2 flex flex-wrap items-end gap-2 ${readOnly ? "hidden" : ""}`}>
         <label htmlFor={`analysis-${index}-add`} className="sr-only">
           Component to add to {key}
         </label>

@@ -4,6 +4,10 @@ import type { IssueDetail } from "@/lib/auth/errors";
 import { Notice } from "@/components/ui/status";
 import { buttonSecondary } from "@/components/ui/styles";
 
+const ISO = /(\d{4}-\d{2}-\d{2})T(\d{2}:\d{2}):\d{2}(?:\.\d+)?Z/g;
+/** The service writes instants as ISO; people read "2026-12-02 00:46 UTC". */
+const readable = (text: string) => text.replace(ISO, "$1 $2 UTC");
+
 /** What changed since the engineer opened the month; their own entries stay in the form. */
 export function ConflictNotice({ message, changes, onLoadTheirs, loading }: { message: string; changes: IssueDetail[]; onLoadTheirs: () => void; loading: boolean }) {
   return (
@@ -13,7 +17,7 @@ export function ConflictNotice({ message, changes, onLoadTheirs, loading }: { me
         <ul className="mt-1.5 space-y-0.5 text-sm" aria-label="Changes since you opened the month">
           {changes.map((c, i) => (
             <li key={i}>
-              <span className="num font-medium">{c.path.replace(/^readings\./, "")}</span>: <span className="num">{c.message}</span>
+              <span className="num font-medium">{c.path.replace(/^readings\./, "")}</span>: <span className="num">{readable(c.message)}</span>
             </li>
           ))}
         </ul>

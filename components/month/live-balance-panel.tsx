@@ -84,13 +84,13 @@ function Figures({ result, tolerance }: { result: CalculationResult; tolerance: 
 }
 
 /** The balance beside the form, recomputed in the browser shortly after typing stops. */
-export function LiveBalancePanel({ outcome, tolerancePct, pending }: { outcome: LiveOutcome | null; tolerancePct: string; pending: boolean }) {
+export function LiveBalancePanel({ outcome, tolerancePct, pending, readOnly }: { outcome: LiveOutcome | null; tolerancePct: string; pending: boolean; readOnly: boolean }) {
   const tolerance = new Dec(tolerancePct);
   return (
-    <section aria-labelledby="live-balance" aria-busy={pending} className="border border-rule bg-white px-3 py-3">
+    <section aria-labelledby="live-balance" id="live-balance-panel" aria-busy={pending} className="border border-rule bg-white px-3 py-3">
       <div className="flex items-baseline justify-between gap-2">
         <h2 id="live-balance" className="text-base font-semibold">
-          Balance as typed
+          {readOnly ? "Balance" : "Balance as typed"}
         </h2>
         <span className="text-xs text-ink-soft" aria-live="polite">
           {pending ? "recalculating…" : outcome?.status === "ok" ? `${outcome.counted} readings` : ""}
@@ -98,7 +98,7 @@ export function LiveBalancePanel({ outcome, tolerancePct, pending }: { outcome: 
       </div>
       <p className="mb-1 text-xs text-ink-soft">Closure = (out − in) / in; tolerance ±{tolerance.toFixed()} %.</p>
       {!outcome || outcome.status === "empty" ? (
-        <p className="py-3 text-sm text-ink-soft">Enter readings and the balances appear here as you type.</p>
+        <p className="py-3 text-sm text-ink-soft">{readOnly ? "No readings entered for this month yet." : "Enter readings and the balances appear here as you type."}</p>
       ) : outcome.status === "issues" ? (
         <div className="py-2 text-sm">
           <Status tone="warn">Cannot close the balance yet</Status>

@@ -1,6 +1,7 @@
 "use client";
 
 import { useRouter } from "next/navigation";
+import { AttachmentList } from "@/components/attachments/attachment-list";
 import { useEffect, useRef, useState, useTransition } from "react";
 import { FormProvider, useForm, type FieldPath } from "react-hook-form";
 import { saveMonthForm } from "@/app/(app)/sites/[siteId]/months/[month]/actions";
@@ -31,15 +32,33 @@ export interface MonthEntryProps {
 
 type Outcome = { tone: "ok" | "fault"; message: string; unplaced?: string[] } | null;
 
-export function MonthEntryForm({ siteId, period, version: openedVersion, context, streams, initial, readOnlyReason, previous }: MonthEntryProps) {
+export function MonthEntryForm({
+  siteId,
+  period,
+  version: openedVersion,
+  context,
+  streams,
+  initial,
+  readOnlyReason,
+  previous,
+}: MonthEntryProps) {
   const router = useRouter();
   const formRef = useRef<HTMLFormElement>(null);
   const [version, setVersion] = useState(openedVersion);
   const [outcome, setOutcome] = useState<Outcome>(null);
-  const [conflict, setConflict] = useState<{ message: string; changes: IssueDetail[] } | null>(null);
+  const [conflict, setConflict] = useState<{ message: string; changes: IssueDetail[] } | null>(
+    null,
+  );
   const [reloading, setReloading] = useState(false);
+  // Until React has taken over, the server-rendered form must not submit natively (it would GET the page).
+  const [interactive, setInteractive] = useState(false);
+  useEffect(() => setInteractive(true), []);
   const [saving, startSaving] = useTransition();
-  const form = useForm<MonthFormValues>({ resolver: monthResolver, defaultValues: initial, mode: "onTouched" });
+  const form = useForm<MonthFormValues>({
+    resolver: monthResolver,
+    defaultValues: initial,
+    mode: "onTouched",
+  });
   const { handleSubmit, getValues, reset, setError, formState, control } = form;
   const readOnly = readOnlyReason !== null;
   const live = useLiveBalance(control, { ...context, streams });
@@ -78,7 +97,11 @@ export function MonthEntryForm({ siteId, period, version: openedVersion, context
       for (const [path, message] of Object.entries(r.errors ?? {})) {
         const field = formPath(path, map, values);
         if (field) {
-          setError(field as FieldPath<MonthFormValues>, { type: "server", message }, { shouldFocus: first });
+          setError(
+            field as FieldPath<MonthFormValues>,
+            { type: "server", message },
+            { shouldFocus: first },
+          );
           first = false;
         } else unplaced.push(`${path}: ${message}`);
       }
@@ -98,87 +121,123 @@ export function MonthEntryForm({ siteId, period, version: openedVersion, context
     return () => window.removeEventListener("keydown", onKey);
   }, [readOnly]);
 
-  const analysisUsers = (key: string) => streams.filter((s) => s.analysisKey === key && !s.archived).map((s) => s.key);
+  const analysisUsers = (key: string) =>
+    streams.filter((s) => s.analysisKey === key && !s.archived).map((s) => s.key);
 
   return (
     <FormProvider {...form}>
       <div className="grid items-start gap-5 lg:grid-cols-[minmax(0,1fr)_19rem]">
-        <form ref={formRef} onSubmit={save} noValidate aria-label="Monthly figures" className="min-w-0 space-y-5">
-          {readOnly ? (
-            <Notice tone="locked" title="Read only">
-              {readOnlyReason}
-            </Notice>
-          ) : null}
-          {conflict ? (
-            <ConflictNotice
-              message={conflict.message}
-              changes={conflict.changes}
-              loading={reloading}
-              onLoadTheirs={() => {
-                setReloading(true);
-                router.refresh();
-              }}
-            />
-          ) : null}
-          {outcome ? (
-            <Notice tone={outcome.tone} title={outcome.tone === "ok" ? undefined : "Not saved"}>
-              {outcome.message}
-              {outcome.unplaced?.length ? (
-                <ul className="mt-1 list-inside list-disc text-sm">
-                  {outcome.unplaced.map((u) => (
-                    <li key={u} className="num">
-                      {u}
-                    </li>
+        <div className="min-w-0 space-y-6">
+          <form
+            ref={formRef}
+            onSubmit={save}
+            noValidate
+            aria-label="Monthly figures"
+            data-interactive={interactive ? "" : undefined}
+            className="min-w-0 space-y-5"
+          >
+            {readOnly ? (
+              <Notice tone="locked" title="Read only">
+                {readOnlyReason}
+              </Notice>
+            ) : null}
+            {conflict ? (
+              <ConflictNotice
+                message={conflict.message}
+                changes={conflict.changes}
+                loading={reloading}
+                onLoadTheirs={() => {
+                  setReloading(true);
+                  router.refresh();
+                }}
+              />
+            ) : null}
+            {outcome ? (
+              <Notice tone={outcome.tone} title={outcome.tone === "ok" ? undefined : "Not saved"}>
+                {outcome.message}
+                {outcome.unplaced?.length ? (
+                  <ul className="mt-1 list-inside list-disc text-sm">
+                    {outcome.unplaced.map((u) => (
+                      <li key={u} className="num">
+                        {u}
+                      </li>
+                    ))}
+                  </ul>
+                ) : null}
+              </Notice>
+            ) : null}
+            <fieldset disabled={readOnly} className="min-w-0 space-y-5">
+              <legend className="sr-only">Meter totals and gas analyses</legend>
+              <section aria-labelledby="readings-heading" className="space-y-2">
+                <h2 id="readings-heading" className="text-base font-semibold">
+                  Meter totals
+                </h2>
+                <ReadingsTable streams={streams} />
+                <p className="text-xs text-ink-soft">
+                  Type exact figures with a dot for decimals; an empty total removes the
+                  month&rsquo;s reading of that stream.
+                </p>
+              </section>
+              <section aria-labelledby="analyses-heading" className="space-y-2">
+                <h2 id="analyses-heading" className="text-base font-semibold">
+                  Gas analyses
+                </h2>
+                {initial.analyses.length === 0 ? (
+                  <p className="text-sm text-ink-soft">No stream of this site names an analysis.</p>
+                ) : null}
+                <div className="grid gap-3 xl:grid-cols-2">
+                  {initial.analyses.map((a, i) => (
+                    <AnalysisEditor
+                      key={a.key}
+                      index={i}
+                      first={i === 0}
+                      readOnly={readOnly}
+                      usedBy={analysisUsers(a.key)}
+                      previous={
+                        previous?.analyses[a.key]
+                          ? { period: previous.period, components: previous.analyses[a.key] }
+                          : undefined
+                      }
+                    />
                   ))}
-                </ul>
-              ) : null}
-            </Notice>
-          ) : null}
-          <fieldset disabled={readOnly} className="min-w-0 space-y-5">
-            <legend className="sr-only">Meter totals and gas analyses</legend>
-            <section aria-labelledby="readings-heading" className="space-y-2">
-              <h2 id="readings-heading" className="text-base font-semibold">
-                Meter totals
-              </h2>
-              <ReadingsTable streams={streams} />
-              <p className="text-xs text-ink-soft">
-                Type exact figures with a dot for decimals; an empty total removes the month&rsquo;s reading of that stream.
-              </p>
-            </section>
-            <section aria-labelledby="analyses-heading" className="space-y-2">
-              <h2 id="analyses-heading" className="text-base font-semibold">
-                Gas analyses
-              </h2>
-              {initial.analyses.length === 0 ? <p className="text-sm text-ink-soft">No stream of this site names an analysis.</p> : null}
-              <div className="grid gap-3 xl:grid-cols-2">
-                {initial.analyses.map((a, i) => (
-                  <AnalysisEditor
-                    key={a.key}
-                    index={i}
-                    first={i === 0}
-                    usedBy={analysisUsers(a.key)}
-                    previous={previous?.analyses[a.key] ? { period: previous.period, components: previous.analyses[a.key] } : undefined}
-                  />
-                ))}
+                </div>
+              </section>
+            </fieldset>
+            {!readOnly ? (
+              <div className="sticky bottom-0 -mx-1 flex flex-wrap items-center gap-3 border-t border-rule bg-paper/95 px-1 py-2.5">
+                <button
+                  id="month-save"
+                  type="submit"
+                  className={buttonPrimary}
+                  disabled={saving || !interactive}
+                >
+                  {saving ? "Saving…" : "Save figures"}
+                </button>
+                <span className="text-sm text-ink-soft">
+                  <kbd className="num">Ctrl</kbd>+<kbd className="num">S</kbd> saves ·{" "}
+                  <kbd className="num">Enter</kbd> moves to the next total
+                </span>
+                <span className="ml-auto text-sm" aria-live="polite">
+                  {formState.isDirty ? "Unsaved changes" : `Saved · version ${version}`}
+                </span>
               </div>
-            </section>
-          </fieldset>
-          {!readOnly ? (
-            <div className="sticky bottom-0 -mx-1 flex flex-wrap items-center gap-3 border-t border-rule bg-paper/95 px-1 py-2.5">
-              <button id="month-save" type="submit" className={buttonPrimary} disabled={saving}>
-                {saving ? "Saving…" : "Save figures"}
-              </button>
-              <span className="text-sm text-ink-soft">
-                <kbd className="num">Ctrl</kbd>+<kbd className="num">S</kbd> saves · <kbd className="num">Enter</kbd> moves to the next total
-              </span>
-              <span className="ml-auto text-sm" aria-live="polite">
-                {formState.isDirty ? "Unsaved changes" : `Saved · version ${version}`}
-              </span>
-            </div>
-          ) : null}
-        </form>
+            ) : null}
+          </form>
+          {/* Outside the figures form: the upload has a form of its own, and forms cannot nest. */}
+          <section aria-labelledby="attachments-heading" className="space-y-2">
+            <h2 id="attachments-heading" className="text-base font-semibold">
+              Certificates and invoices
+            </h2>
+            <AttachmentList siteId={siteId} month={period} canUpload={!readOnly} />
+          </section>
+        </div>
         <aside className="lg:sticky lg:top-4">
-          <LiveBalancePanel outcome={live.outcome} pending={live.pending} tolerancePct={context.tolerancePct} />
+          <LiveBalancePanel
+            outcome={live.outcome}
+            pending={live.pending}
+            tolerancePct={context.tolerancePct}
+            readOnly={readOnly}
+          />
         </aside>
       </div>
     </FormProvider>

@@ -23,6 +23,8 @@ export function focusAfterRow(i: number) {
 
 export function ReadingsTable({ streams }: { streams: StreamInfo[] }) {
   const { register, formState } = useFormContext<MonthFormValues>();
+  // Values also go into the server-rendered HTML, so figures show before the page turns interactive.
+  const initial = formState.defaultValues?.readings ?? [];
   const onKeyDown = (i: number) => (e: KeyboardEvent<HTMLTableRowElement>) => {
     const t = e.target as HTMLElement;
     if (e.key !== "Enter" || e.shiftKey || e.nativeEvent.isComposing || !(t instanceof HTMLInputElement || t instanceof HTMLSelectElement)) return;
@@ -69,12 +71,13 @@ export function ReadingsTable({ streams }: { streams: StreamInfo[] }) {
                     className={`${cell} num w-full text-right`}
                     aria-invalid={qErr ? true : undefined}
                     aria-describedby={describedBy}
+                    defaultValue={initial[i]?.quantity}
                     {...register(`readings.${i}.quantity`)}
                   />
                   <FieldError id={`reading-${i}-error`} message={qErr} />
                 </td>
                 <td className="w-28 px-2 py-1.5">
-                  <select aria-label={`Unit of ${s.name}`} className={`${cell} num w-full`} aria-invalid={uErr ? true : undefined} {...register(`readings.${i}.unit`)}>
+                  <select aria-label={`Unit of ${s.name}`} className={`${cell} num w-full`} aria-invalid={uErr ? true : undefined} defaultValue={initial[i]?.unit} {...register(`readings.${i}.unit`)}>
                     {s.units.map((u) => (
                       <option key={u} value={u}>
                         {u}
@@ -84,7 +87,7 @@ export function ReadingsTable({ streams }: { streams: StreamInfo[] }) {
                   <FieldError id={`reading-${i}-unit-error`} message={uErr} />
                 </td>
                 <td className="w-28 px-2 py-1.5">
-                  <select aria-label={`Source of ${s.name}`} className={`${cell} w-full`} {...register(`readings.${i}.source`)}>
+                  <select aria-label={`Source of ${s.name}`} className={`${cell} w-full`} defaultValue={initial[i]?.source} {...register(`readings.${i}.source`)}>
                     {SOURCES.map((o) => (
                       <option key={o.value} value={o.value}>
                         {o.label}
@@ -93,7 +96,7 @@ export function ReadingsTable({ streams }: { streams: StreamInfo[] }) {
                   </select>
                 </td>
                 <td className="px-2 py-1.5">
-                  <input aria-label={`Note on ${s.name}`} autoComplete="off" className={`${cell} w-full min-w-32`} {...register(`readings.${i}.note`)} />
+                  <input aria-label={`Note on ${s.name}`} autoComplete="off" className={`${cell} w-full min-w-32`} defaultValue={initial[i]?.note} {...register(`readings.${i}.note`)} />
                   <FieldError id={`reading-${i}-note-error`} message={err?.note?.message} />
                 </td>
               </tr>

@@ -12,12 +12,14 @@ const DEBOUNCE_MS = 300;
 export function useLiveBalance(control: Control<MonthFormValues>, ctx: LiveContext): { outcome: LiveOutcome | null; pending: boolean } {
   const values = useWatch({ control }) as MonthFormValues;
   const key = useMemo(() => JSON.stringify(values), [values]);
-  const [state, setState] = useState<{ key: string; outcome: LiveOutcome } | null>(null);
+  // The first result is computed during render (on the server too), so the page arrives with its balance.
+  const [state, setState] = useState<{ key: string; outcome: LiveOutcome }>(() => ({ key, outcome: liveCalculation(values, ctx) }));
   useEffect(() => {
-    const t = setTimeout(() => setState({ key, outcome: liveCalculation(JSON.parse(key) as MonthFormValues, ctx) }), state ? DEBOUNCE_MS : 0);
+    if (key === state.key) return;
+    const t = setTimeout(() => setState({ key, outcome: liveCalculation(JSON.parse(key) as MonthFormValues, ctx) }), DEBOUNCE_MS);
     return () => clearTimeout(t);
     // ctx is fixed while the form is open; recompute on value changes only.
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [key]);
-  return { outcome: state?.outcome ?? null, pending: state?.key !== key };
+  return { outcome: state.outcome, pending: state.key !== key };
 }

@@ -39,7 +39,7 @@ export async function runMonthEntry(browser: Browser, kit: E2eKit): Promise<void
     assert(siteId, "Estuary Works is not in the site picker");
     url = `${base}/sites/${siteId}/months/${period}`;
     await page.goto(url);
-    await page.getByRole("heading", { name: "Meter totals" }).waitFor();
+    await page.locator("form[data-interactive]").waitFor();
     assert((await page.locator("#reading-0-quantity").inputValue()) === "", "a fresh month should start empty");
   });
 
@@ -63,7 +63,7 @@ export async function runMonthEntry(browser: Browser, kit: E2eKit): Promise<void
   await check("the balance beside the form closes while typing", async () => {
     const panel = page.getByRole("region", { name: "Balance as typed" });
     await panel.getByText("Carbon", { exact: true }).waitFor();
-    await page.waitForFunction(() => /Closes|Outside/.test(document.querySelector("[aria-labelledby=live-balance]")?.textContent ?? ""), null, { timeout: 15_000 });
+    await page.waitForFunction(() => /Closes|Outside/.test(document.getElementById("live-balance-panel")?.textContent ?? ""), null, { timeout: 15_000 });
     const text = await panel.innerText();
     assert(/Carbon\s*[+\u2212-]\d+\.\d\d %/.test(text), `no carbon closure shown: ${text.slice(0, 200)}`);
     assert(/t CO2e\/t NH3/.test(text) && /GJ \(LHV\)\/t NH3/.test(text), "intensities missing");
@@ -74,7 +74,7 @@ export async function runMonthEntry(browser: Browser, kit: E2eKit): Promise<void
     await page.keyboard.press("Control+s");
     await page.getByText(/^Saved \d+ changes?\. Version 1\.$/).waitFor({ timeout: 20_000 });
     await page.reload();
-    await page.getByRole("heading", { name: "Meter totals" }).waitFor();
+    await page.locator("form[data-interactive]").waitFor();
     for (let i = 0; i < TOTALS.length; i++) {
       const v = await page.locator(`#reading-${i}-quantity`).inputValue();
       assert(v === TOTALS[i], `after reload row ${i} is ${v}, typed ${TOTALS[i]}`);
@@ -87,7 +87,7 @@ export async function runMonthEntry(browser: Browser, kit: E2eKit): Promise<void
     await kit.signIn(stale, engineer.email, engineer.password);
     await stale.waitForURL(`${base}/`, { timeout: 20_000 });
     await stale.goto(url);
-    await stale.getByRole("heading", { name: "Meter totals" }).waitFor();
+    await stale.locator("form[data-interactive]").waitFor();
     await page.locator("#reading-6-quantity").fill("5700");
     await page.keyboard.press("Control+s");
     await page.getByText(/Version 2\.$/).waitFor({ timeout: 20_000 });
