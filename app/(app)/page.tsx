@@ -1,45 +1,46 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { Suspense } from "react";
+import { AttentionList } from "@/components/overview/attention-list";
+import { CardSkeleton, ListSkeleton } from "@/components/overview/skeletons";
+import { SiteYearCard } from "@/components/overview/site-year-card";
 import { EmptyState } from "@/components/ui/empty-state";
-import { formatMonth, previousMonthKey } from "@/components/ui/format";
-import { MonthStateBadge } from "@/components/ui/month-state";
 import { link, pageTitle } from "@/components/ui/styles";
 import { getDb } from "@/db";
-import { listMonthsOfOrganisation, listSites } from "@/db/queries/sites";
+import { overviewScope } from "@/db/queries/overview";
 import { can, requirePageActor } from "@/lib/auth/guard";
 
 export const metadata: Metadata = { title: "Overview" };
 
-/** What each permission means to the reader, in the order the month's work happens. */
-const ABILITIES = [
-  ["month:enter", "enter and import monthly figures and gas analyses"],
-  ["month:balance", "close the carbon, hydrogen and nitrogen balances"],
-  ["month:prepare", "prepare emissions statements and send them for signing"],
-  ["month:sign", "sign or return statements"],
-  ["org:manage-users", "manage users, invitations and sites"],
-] as const;
-
+/**
+ * Every site's current year at a glance. "Current" is the latest year that has months, not the
+ * calendar year: a ledger being filled in for last year still opens on last year. Each site card
+ * and the attention list compute on their own, so a slow site never holds the page.
+ */
 export default async function OverviewPage() {
   const actor = await requirePageActor();
-  const db = getDb();
-  const month = previousMonthKey();
-  const [sites, months] = await Promise.all([listSites(db, actor.organisationId), listMonthsOfOrganisation(db, actor.organisationId, month, month)]);
-  const abilities = ABILITIES.filter(([p]) => can(actor, p)).map(([, text]) => text);
+  const { sites, year } = await overviewScope(getDb(), actor.organisationId);
 
   return (
     <div className="space-y-6">
       <div>
         <h1 className={pageTitle}>Overview</h1>
         <p className="mt-1 text-ink-soft">
-          {actor.organisationName} · month to close: <span className="num text-ink">{formatMonth(month)}</span>
+          {actor.organisationName}
+          {year ? (
+            <>
+              {" "}
+              · year <span className="num text-ink">{year}</span> (the latest with months) · figures computed from the stored months
+            </>
+          ) : null}
         </p>
       </div>
 
       {sites.length === 0 ? (
         <EmptyState title="No sites yet">
           <p>
-            Each site of {actor.organisationName} will be listed here with the state of its latest month, the closure of its
-            carbon, hydrogen and nitrogen balances and its CO2e intensity per tonne of ammonia.
+            Each site of {actor.organisationName} will be listed here with its months by state, the closure of its carbon,
+            hydrogen and nitrogen balances and its intensities against the factor set&rsquo;s benchmarks.
           </p>
           <p>
             {can(actor, "site:manage") ? (
@@ -55,40 +56,35 @@ export default async function OverviewPage() {
             )}
           </p>
         </EmptyState>
-      ) : (
-        <section aria-labelledby="sites-heading" className="border border-rule bg-white">
-          <h2 id="sites-heading" className="border-b border-rule px-4 py-2.5 text-base font-semibold">
-            Sites · {formatMonth(month)}
-          </h2>
-          <ul className="divide-y divide-rule">
-            {sites.map((s) => {
-              const m = months.find((row) => row.siteId === s.id);
-              return (
-                <li key={s.id} className="flex flex-wrap items-center justify-between gap-3 px-4 py-2.5">
-                  <Link href={`/sites/${s.id}/months/${month}`} className={link}>
-                    {s.name} <span className="num text-ink-faint">{s.code}</span>
-                  </Link>
-                  <MonthStateBadge state={m?.state ?? null} />
-                </li>
-              );
-            })}
-          </ul>
-        </section>
-      )}
-
-      <section aria-labelledby="you-heading" className="max-w-prose">
-        <h2 id="you-heading" className="text-base font-semibold">
-          Your part
-        </h2>
-        {abilities.length > 0 ? (
-          <p className="mt-1 text-ink-soft">With your roles you can {abilities.join("; ")}. You can read everything of your organisation.</p>
-        ) : (
-          <p className="mt-1 text-ink-soft">
-            Your roles let you read everything of your organisation&rsquo;s sites and download and verify signed statements; you
-            cannot change anything.
+      ) : !year ? (
+        <EmptyState title="No months yet">
+          <p>
+            The overview fills in once a process engineer enters or imports a month for one of the sites (
+            <Link href="/months" className={link}>
+              Monthly ledger
+            </Link>
+            ).
           </p>
-        )}
-      </section>
+        </EmptyState>
+      ) : (
+        <>
+          <div className="space-y-4">
+            {sites.map((s) => (
+              <Suspense key={s.id} fallback={<CardSkeleton title={s.name} />}>
+                <SiteYearCard organisationId={actor.organisationId} site={s} year={year} />
+              </Suspense>
+            ))}
+          </div>
+          <section aria-labelledby="attention-heading" className="space-y-2">
+            <h2 id="attention-heading" className="text-base font-semibold">
+              Waiting for someone in {year}
+            </h2>
+            <Suspense fallback={<ListSkeleton label="Waiting for someone" />}>
+              <AttentionList organisationId={actor.organisationId} sites={sites} year={year} roles={actor.roles} />
+            </Suspense>
+          </section>
+        </>
+      )}
     </div>
   );
 }
