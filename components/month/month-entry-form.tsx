@@ -2,9 +2,9 @@
 
 import { useRouter } from "next/navigation";
 import { AttachmentList } from "@/components/attachments/attachment-list";
-import { useEffect, useRef, useState, useTransition } from "react";
+import { useEffect, useRef, useState, useSyncExternalStore, useTransition } from "react";
 import { FormProvider, useForm, type FieldPath } from "react-hook-form";
-import { saveMonthForm } from "@/app/(app)/sites/[siteId]/months/[month]/actions";
+import { loadSavedMonth, saveMonthForm } from "@/app/(app)/sites/[siteId]/months/[month]/actions";
 import { Notice } from "@/components/ui/status";
 import { buttonPrimary } from "@/components/ui/styles";
 import type { IssueDetail } from "@/lib/auth/errors";
@@ -30,6 +30,8 @@ export interface MonthEntryProps {
   previous: { period: string; analyses: Record<string, Record<string, string>> } | null;
 }
 
+const noSubscribe = () => () => {};
+
 type Outcome = { tone: "ok" | "fault"; message: string; unplaced?: string[] } | null;
 
 export function MonthEntryForm({
@@ -51,8 +53,11 @@ export function MonthEntryForm({
   );
   const [reloading, setReloading] = useState(false);
   // Until React has taken over, the server-rendered form must not submit natively (it would GET the page).
-  const [interactive, setInteractive] = useState(false);
-  useEffect(() => setInteractive(true), []);
+  const interactive = useSyncExternalStore(
+    noSubscribe,
+    () => true,
+    () => false,
+  );
   const [saving, startSaving] = useTransition();
   const form = useForm<MonthFormValues>({
     resolver: monthResolver,
@@ -64,16 +69,21 @@ export function MonthEntryForm({
   const live = useLiveBalance(control, { ...context, streams });
   useUnsavedGuard(formState.isDirty && !readOnly, formRef);
 
-  // "Load their figures": the page re-renders with the saved month; only then replace the form.
-  useEffect(() => {
-    if (!reloading) return;
-    reset(initial);
-    setVersion(openedVersion);
-    setConflict(null);
-    setOutcome({ tone: "ok", message: `Loaded the figures saved in version ${openedVersion}.` });
+  // "Load their figures": fetch the month as saved now and replace the form with it, on request only.
+  const loadTheirs = async () => {
+    setReloading(true);
+    const r = await loadSavedMonth(siteId, period);
     setReloading(false);
-    // eslint-disable-next-line react-hooks/exhaustive-deps -- runs when the refreshed props arrive
-  }, [initial]);
+    if (!r.ok || !r.data) {
+      setOutcome({ tone: "fault", message: r.ok ? "The month could not be loaded." : r.message });
+      return;
+    }
+    reset(r.data.initial);
+    setVersion(r.data.version);
+    setConflict(null);
+    setOutcome({ tone: "ok", message: `Loaded the figures saved in version ${r.data.version}.` });
+    router.refresh();
+  };
 
   const save = handleSubmit(() =>
     startSaving(async () => {
@@ -146,10 +156,7 @@ export function MonthEntryForm({
                 message={conflict.message}
                 changes={conflict.changes}
                 loading={reloading}
-                onLoadTheirs={() => {
-                  setReloading(true);
-                  router.refresh();
-                }}
+                onLoadTheirs={loadTheirs}
               />
             ) : null}
             {outcome ? (
@@ -224,12 +231,7 @@ export function MonthEntryForm({
             ) : null}
           </form>
           {/* Outside the figures form: the upload has a form of its own, and forms cannot nest. */}
-          <section aria-labelledby="attachments-heading" className="space-y-2">
-            <h2 id="attachments-heading" className="text-base font-semibold">
-              Certificates and invoices
-            </h2>
-            <AttachmentList siteId={siteId} month={period} canUpload={!readOnly} />
-          </section>
+          <AttachmentList siteId={siteId} month={period} canUpload={!readOnly} />
         </div>
         <aside className="lg:sticky lg:top-4">
           <LiveBalancePanel

@@ -2,7 +2,7 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
-import { useEffect, useState, useTransition } from "react";
+import { useEffect, useMemo, useState, useTransition } from "react";
 import { useForm, useWatch, type Path } from "react-hook-form";
 import { createStream, editStream } from "@/app/(app)/settings/sites/actions";
 import { Notice } from "@/components/ui/status";
@@ -25,7 +25,7 @@ export function StreamForm({ siteId, streamId, defaults, analysisKeys }: { siteI
   const form = useForm<StreamInput, unknown, StreamValues>({ resolver: zodResolver(streamSchema), defaultValues: defaults });
   const { register, handleSubmit, setError, setValue, getValues, formState, control } = form;
   const kind = useWatch({ control, name: "kind" });
-  const units = UNITS_BY_KIND[kind] ?? [];
+  const units = useMemo(() => UNITS_BY_KIND[kind] ?? [], [kind]);
   const err = (k: keyof StreamInput) => formState.errors[k]?.message;
 
   useEffect(() => {

@@ -97,6 +97,9 @@ export async function runMonthEntry(browser: Browser, kit: E2eKit): Promise<void
     assert(await stale.getByText(/co2-vent/).first().isVisible(), "the changed stream is not named");
     assert((await stale.locator("#reading-6-quantity").inputValue()) === "5600", "the stale tab lost its entry");
     await shot(stale, "42-month-entry-conflict");
+    await stale.getByRole("button", { name: "Load their figures (discards yours)" }).click();
+    await stale.getByText("Loaded the figures saved in version 2.").waitFor({ timeout: 20_000 });
+    assert((await stale.locator("#reading-6-quantity").inputValue()) === "5700", "their figure was not loaded");
     await stale.context().close();
   });
 

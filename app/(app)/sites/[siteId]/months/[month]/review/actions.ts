@@ -1,6 +1,7 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
+import { redirect } from "next/navigation";
 import { z } from "zod";
 import { getDb } from "@/db";
 import { guardedAction, type ActionResult } from "@/lib/auth/guard";
@@ -23,17 +24,22 @@ const transitionSchema = z.object({
  */
 export async function transitionAction(_prev: ActionResult | null, formData: FormData): Promise<ActionResult> {
   const raw = Object.fromEntries([...formData.entries()].filter(([k, v]) => !k.startsWith("$") && typeof v === "string"));
+  let notified = 0;
   const result = await guardedAction<undefined>("org:read", "change the month's state", async (actor) => {
     const input = transitionSchema.parse(raw);
     const out = await transitionMonth(getDb(), actor, input);
+    notified = out.notified;
     const mail = out.notified ? ` ${out.notified} ${out.notified === 1 ? "person was" : "people were"} notified.` : "";
     return { ok: true, message: `Done: the month is now ${STATE_LABELS[out.state]} (revision ${out.revision}).${mail}` };
   });
   if (result.ok) {
-    const siteId = String(formData.get("siteId"));
-    const period = String(formData.get("period"));
+    const siteId = encodeURIComponent(String(formData.get("siteId")));
+    const period = encodeURIComponent(String(formData.get("period")));
+    const transition = encodeURIComponent(String(formData.get("transition")));
     revalidatePath(`/sites/${siteId}/months/${period}/review`);
     revalidatePath("/statements");
+    // The form that was used disappears with the old state, so the outcome travels in the URL.
+    redirect(`/sites/${siteId}/months/${period}/review?done=${transition}&notified=${notified}`);
   }
   return result;
 }

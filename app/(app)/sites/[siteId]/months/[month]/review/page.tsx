@@ -13,6 +13,7 @@ import { link, pageTitle } from "@/components/ui/styles";
 import { getDb } from "@/db";
 import { requirePageActor } from "@/lib/auth/guard";
 import { loadReview } from "@/lib/lifecycle/review-data";
+import { RULES, STATE_LABELS, TRANSITIONS, type TransitionName } from "@/lib/lifecycle/transitions";
 import { transitionAction } from "./actions";
 
 type Params = { siteId: string; month: string };
@@ -27,8 +28,9 @@ export async function generateMetadata({ params }: { params: Promise<Params> }):
  * method from the engine run of the stored figures, and the life-cycle panel beside them.
  * Every member may read it; the panel offers only what the reader's roles allow.
  */
-export default async function ReviewPage({ params }: { params: Promise<Params> }) {
+export default async function ReviewPage({ params, searchParams }: { params: Promise<Params>; searchParams: Promise<{ done?: string; notified?: string }> }) {
   const { siteId, month: period } = await params;
+  const { done, notified } = await searchParams;
   const actor = await requirePageActor();
   if (!isMonthKey(period)) notFound();
   const data = await loadReview(getDb(), actor, siteId, period);
@@ -49,6 +51,13 @@ export default async function ReviewPage({ params }: { params: Promise<Params> }
           <h1 className={pageTitle}>Review and sign-off: {formatMonth(period)}</h1>
         </div>
       </div>
+
+      {data.month && done && (TRANSITIONS as readonly string[]).includes(done) ? (
+        <Notice tone="ok" title={`Done: the month is now ${STATE_LABELS[data.month.state]} (revision ${data.month.revision}).`}>
+          You {RULES[done as TransitionName].done}
+          {Number(notified) > 0 ? `; ${notified} ${Number(notified) === 1 ? "person was" : "people were"} notified by e-mail` : ""}.
+        </Notice>
+      ) : null}
 
       {!data.month ? (
         <EmptyState title="Nothing entered for this month yet">
