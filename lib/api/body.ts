@@ -53,10 +53,26 @@ function plain(value: JsonValue, integerKeys: ReadonlySet<string>, key?: string)
   return value;
 }
 
+/** Where a string holds U+0000, which PostgreSQL text cannot store: answered with its path, not a 500. */
+function nulPath(value: JsonValue, path: string): string | null {
+  if (typeof value === "string") return value.includes("\u0000") ? path : null;
+  if (value === null || typeof value !== "object" || value instanceof JsonNumber) return null;
+  for (const [k, v] of Array.isArray(value) ? value.entries() : Object.entries(value)) {
+    const at = typeof k === "number" ? `${path}[${k}]` : path ? `${path}.${k}` : k;
+    if (typeof k === "string" && k.includes("\u0000")) return at;
+    const found = nulPath(v, at);
+    if (found !== null) return found;
+  }
+  return null;
+}
+
 export function parseJsonText(text: string, integerKeys: readonly string[] = []): unknown {
   if (text.trim() === "") throw new HttpError(400, "invalid_json", "The request body is empty; send a JSON object.");
   try {
-    return plain(readJson(text), new Set(integerKeys));
+    const value = readJson(text);
+    const nul = nulPath(value, "");
+    if (nul !== null) throw new HttpError(400, "invalid_input", "Text in the body contains the NUL character (U+0000), which cannot be stored.", [{ path: nul || "body", message: "remove the NUL character (\\u0000)" }]);
+    return plain(value, new Set(integerKeys));
   } catch (err) {
     if (err instanceof JsonSyntaxError) throw new HttpError(400, "invalid_json", `The request body is not valid JSON: ${err.message}.`, [{ path: "", message: err.message }]);
     throw err;

@@ -8,6 +8,7 @@ import { membership } from "@/db/queries/users";
 import { HttpError, forbidden, unauthorized, zodIssues } from "./errors";
 import { isRole, rolesGrant, type Permission, type Role } from "./roles";
 import { assertSameOrigin } from "./same-origin";
+import { storageRefusal } from "./storage-refusal";
 
 /** Who is acting, with the roles held in the active organisation as the database has them now. */
 export interface Actor {
@@ -60,6 +61,7 @@ export async function requirePageActor(permission: Permission = "org:read"): Pro
 }
 
 export function errorResponse(err: unknown): NextResponse {
+  err = storageRefusal(err) ?? err;
   if (err instanceof HttpError) {
     return NextResponse.json(
       { error: { code: err.code, message: err.message, ...(err.issues.length ? { issues: err.issues } : {}) } },
@@ -115,7 +117,8 @@ export async function guardedAction<T>(
     const actor = await currentActor();
     assertCan(actor, permission, what);
     return await run(actor);
-  } catch (err) {
+  } catch (caught) {
+    const err = storageRefusal(caught) ?? caught;
     if (err instanceof HttpError) {
       const errors = Object.fromEntries(err.issues.map((i) => [i.path, i.message]));
       return { ok: false, message: err.message, ...(err.issues.length ? { errors } : {}) };

@@ -11,6 +11,8 @@ import { UNITS, UNIT_DEFS, type Unit } from "./units";
 
 export const PLANT_MONTH_FORMAT = "synledger.plant-month/1";
 const DECIMAL_TEXT = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+const MAX_DECIMAL_CHARS = 100;
+const MAX_DECIMAL_EXPONENT = 30;
 
 /** A decimal field: JSON string, JsonNumber (literal digits) or, from already-parsed JSON, a JS number. */
 const decimal = (what: "quantity" | "value") =>
@@ -28,7 +30,17 @@ const decimal = (what: "quantity" | "value") =>
       ctx.addIssue({ code: "custom", message: `is not a number (${JSON.stringify(v instanceof JsonNumber ? v.text : v)})` });
       return z.NEVER;
     }
+    // Bounds far outside any plant figure: "1e999999999999" is valid decimal text, but writing it
+    // out (toFixed) would take a terabyte and end the process, so it is refused here.
+    if (text.length > MAX_DECIMAL_CHARS) {
+      ctx.addIssue({ code: "custom", message: `is longer than ${MAX_DECIMAL_CHARS} characters` });
+      return z.NEVER;
+    }
     const d = new Dec(text);
+    if (!d.isZero() && (d.e > MAX_DECIMAL_EXPONENT || d.e < -MAX_DECIMAL_EXPONENT)) {
+      ctx.addIssue({ code: "custom", message: `is out of range (${text}); plant figures lie between 1e-${MAX_DECIMAL_EXPONENT} and 1e${MAX_DECIMAL_EXPONENT}` });
+      return z.NEVER;
+    }
     if (d.isNegative() && !d.isZero()) {
       ctx.addIssue({ code: "custom", message: `${what === "quantity" ? "quantity" : "value"} must not be negative (${text})` });
       return z.NEVER;
