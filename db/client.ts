@@ -12,5 +12,9 @@ export function createDb(url: string, max = Number(process.env.DB_POOL_MAX ?? 10
   const pool = new Pool({ connectionString: url, max, idleTimeoutMillis: 30_000 });
   // A dropped connection (server restart) must not crash the process; the pool reconnects.
   pool.on("error", (err) => console.error("[db] idle client error:", err.message));
+  // The pool listens only while a client is idle; one checked out for a transaction that is
+  // waiting between queries (an import reporting progress) would otherwise raise an uncaught
+  // exception when the server goes away. The transaction's next query fails and rolls back.
+  pool.on("connect", (client) => client.on("error", (err) => console.error("[db] connection lost:", err.message)));
   return drizzle(pool, { schema }) as Db;
 }
