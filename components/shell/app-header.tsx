@@ -5,6 +5,7 @@ import { can, type Actor } from "@/lib/auth/guard";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { ContextSwitcher, type SiteOption } from "./context-switcher";
 import { MainNav, type NavItem } from "./main-nav";
+import { SiteViewsNav } from "./site-views-nav";
 
 /** Header of every signed-in page: product, organisation, who is signed in, navigation, site and month. */
 export function AppHeader({ actor, sites, defaultMonth }: { actor: Actor; sites: SiteOption[]; defaultMonth: string }) {
@@ -49,7 +50,10 @@ export function AppHeader({ actor, sites, defaultMonth }: { actor: Actor; sites:
         </div>
       </div>
       <div className="no-print mx-auto flex max-w-6xl flex-wrap items-end justify-between gap-x-6 gap-y-2 px-5 pt-2">
-        <MainNav items={items} />
+        <div className="flex flex-wrap items-end gap-x-2">
+          <MainNav items={items} />
+          <SiteViewsNav sites={sites} />
+        </div>
         <div className="pb-2">
           <ContextSwitcher sites={sites} defaultMonth={defaultMonth} />
         </div>

@@ -2,7 +2,7 @@ import "server-only";
 import { createHash } from "node:crypto";
 import { and, asc, eq, inArray, isNull, like, max } from "drizzle-orm";
 import type { Db, Tx } from "../client";
-import { gasAnalyses, months, readings, sites, streams } from "../schema";
+import { gasAnalyses, months, readings, sites, statements, streams } from "../schema";
 import { methodOf } from "./months";
 import { findSite, listSites } from "./sites";
 import { calculateMonth, type MonthCalculation } from "@/lib/ledger/calculate-month";
@@ -127,4 +127,18 @@ export function seriesOf(y: SiteYear): YearSeries {
 export async function overviewScope(db: Db | Tx, organisationId: string) {
   const [siteList, year] = await Promise.all([listSites(db, organisationId), latestYearOfOrganisation(db, organisationId)]);
   return { sites: siteList, year };
+}
+
+/** When a monthly statement of the year was last signed, or null: an annual statement older than that is out of date. */
+export async function lastMonthlySigning(db: Db | Tx, siteId: string, year: string): Promise<Date | null> {
+  const [row] = await db
+    .select({ at: max(statements.signedAt) })
+    .from(statements)
+    .where(and(eq(statements.siteId, siteId), eq(statements.kind, "monthly"), like(statements.period, `${year}-%`)));
+  return row?.at ?? null;
+}
+
+/** Locks the year's month rows so none changes state while the annual statement is signed. */
+export async function lockMonthsOfYear(tx: Tx, siteId: string, year: string): Promise<void> {
+  await tx.select({ id: months.id }).from(months).where(and(eq(months.siteId, siteId), like(months.period, `${year}-%`))).for("update");
 }

@@ -1,0 +1,155 @@
+/**
+ * Year data → AnnualStatementModel, the display model reports/annual-statement.tsx lays out. The
+ * annual page shows the same strings before signing, so what the signatory reads is what the PDF
+ * prints. Every figure is formatted from the engine's decimals here, once.
+ */
+import { num } from "@/lib/balance/decimal";
+import { toResultDocument } from "@/lib/balance/result";
+import { uncertaintyJson } from "@/lib/balance/result-emissions";
+import type { YearResult } from "@/lib/emissions/year";
+import type { MonthRun, YearBenchmark } from "@/lib/ledger/year";
+import { flagRows, meteringLabel, methodSection, revisionRows, uncertaintyRow, type RevisionFact } from "@/reports/build-model-parts";
+import { DASH, compare, fixed, monthLabel, percentOver, small, utcStamp } from "@/reports/format";
+import { STATEMENT_CAUTIONS, type AnnualStatementModel, type GasRow, type IntensityRow } from "@/reports/model";
+
+const STATE_LABEL: Record<string, string> = { open: "Open", balanced: "Balanced", in_review: "In review", signed: "Signed", submitted: "Submitted" };
+
+export interface AnnualModelInput {
+  organisation: string;
+  site: { name: string; code: string; meteringReference: string };
+  year: string;
+  revision: number;
+  statementRef: string;
+  runs: MonthRun[];
+  rollUp: YearResult;
+  benchmarks: YearBenchmark[];
+  theoreticalMin: string | null;
+  preparedBy: string;
+  preparedAt: Date | null;
+  revisions: RevisionFact[];
+  signOff: { signer: string; role: string; signedAt: Date | null; certificateSubject: string; certificateFingerprint: string; verifyAt: string };
+}
+
+function gasRows(runs: MonthRun[]): GasRow[] {
+  const ok = runs.flatMap((r) => (r.result ? [r.result.emissions.detail] : []));
+  const gwps = new Set(ok.map((d) => d.gwp.id));
+  return (["co2", "ch4", "n2o"] as const).map((g) => {
+    const t = ok.reduce((a, d) => a.plus(d.by_gas[g].t), ok[0].by_gas[g].t.times(0));
+    const co2e = ok.reduce((a, d) => a.plus(d.by_gas[g].co2e_t), ok[0].by_gas[g].co2e_t.times(0));
+    const gwp = g === "co2" ? "1" : gwps.size === 1 ? ok[0].gwp[g].toFixed() : "mixed";
+    return { gas: g.toUpperCase(), mass: { value: g === "co2" ? fixed(num(t), 1) : small(num(t)), unit: "t" }, gwp, co2e: { value: fixed(num(co2e), 1), unit: "t CO2e" } };
+  });
+}
+
+const MEASURE: Record<YearBenchmark["compared_with"], string> = { co2_t_per_t_nh3: "Direct CO2 per tonne NH3", co2e_t_per_t_nh3: "Direct CO2e per tonne NH3" };
+
+export function intensityRowsOfYear(y: YearResult, benchmarks: YearBenchmark[], theoreticalMin: string | null): IntensityRow[] {
+  const rows: IntensityRow[] = [];
+  const info = (measure: string, value: string | null, places: number, unit: string): IntensityRow => ({
+    measure, value: { value: fixed(value, places), unit }, benchmark: { value: DASH, unit }, benchmarkSource: "no benchmark in the factor set", mark: "info", position: "For information",
+  });
+  const co2e = num(y.intensity.co2e_t_per_t_nh3);
+  if (!benchmarks.some((b) => b.compared_with === "co2e_t_per_t_nh3")) rows.push(info("Direct CO2e per tonne NH3", co2e, 3, "t CO2e/t NH3"));
+  for (const b of benchmarks) {
+    const above = b.site_value !== null && compare(b.site_value, b.value) > 0;
+    rows.push({
+      measure: `${MEASURE[b.compared_with]}, against ${b.label}`,
+      value: { value: fixed(b.site_value, 3), unit: b.unit },
+      benchmark: { value: fixed(b.value, 3), unit: b.unit },
+      benchmarkSource: `${b.source}${b.from_memory ? " (from memory)" : ""}`,
+      mark: above ? "attention" : "ok",
+      position: b.site_value === null ? "No value this year" : `${above ? "Above by" : "At or below, by"} ${percentOver(b.site_value, b.value)} %`,
+    });
+  }
+  rows.push(info("Net CO2e per tonne NH3 (after deductions)", num(y.intensity.net_co2e_t_per_t_nh3), 3, "t CO2e/t NH3"));
+  const gj = num(y.intensity.gj_lhv_per_t_nh3);
+  rows.push({
+    measure: "Energy per tonne NH3 (net calorific value), against the theoretical minimum",
+    value: { value: fixed(gj, 2), unit: "GJ/t NH3" },
+    benchmark: { value: fixed(theoreticalMin, 2), unit: "GJ/t NH3" },
+    benchmarkSource: "theoretical minimum for the year's gas, weighted by monthly production",
+    mark: "info",
+    position: gj && theoreticalMin ? `Above the minimum by ${percentOver(gj, theoreticalMin)} %` : "No value this year",
+  });
+  return rows;
+}
+
+export function buildAnnualModel(input: AnnualModelInput): AnnualStatementModel {
+  const y = input.rollUp;
+  const computed = input.runs.filter((r) => r.result);
+  const first = toResultDocument(computed[0].result!);
+  const method = methodSection(first);
+  if (y.flags.some((f) => f.code.startsWith("mixed-"))) method.notes.push("The months of this year do not all use the same method, factor set or GWP set; each month is stated under its own.");
+  const monthFlags = input.runs.flatMap((r) =>
+    (r.result?.flags ?? []).filter((f) => f.severity !== "info").map((f) => ({ code: f.code, severity: f.severity, message: `${r.period}: ${f.message}`, ...(f.stream ? { stream: f.stream } : {}) })),
+  );
+  return {
+    header: {
+      organisation: input.organisation,
+      siteName: input.site.name,
+      siteCode: input.site.code,
+      period: input.year,
+      periodLabel: `Calendar year ${input.year}`,
+      revision: String(input.revision),
+      statementRef: input.statementRef,
+      meteringReference: meteringLabel(input.site.meteringReference),
+      preparedBy: input.preparedBy,
+      preparedAt: input.preparedAt ? utcStamp(input.preparedAt) : DASH,
+    },
+    method,
+    units: { ammonia: "t", co2: "t", co2e: "t", intensity: "t CO2e/t NH3" },
+    months: input.runs.map((r) => {
+      const d = r.result?.emissions.detail;
+      return {
+        month: monthLabel(r.period),
+        revision: String(r.revision),
+        ammonia: fixed(num(r.result?.feed.ammonia_t), 1),
+        grossCo2: fixed(num(d?.co2.gross_t), 1),
+        deducted: fixed(num(d?.co2.deductible_t), 1),
+        netCo2: fixed(num(d?.co2.net_t), 1),
+        co2e: fixed(num(d?.emissions.co2e_t), 1),
+        intensity: fixed(num(d?.intensity.co2e_t_per_t_nh3), 3),
+        status: r.result ? STATE_LABEL[r.state] : "Does not compute",
+      };
+    }),
+    totals: {
+      ammonia: fixed(num(y.ammonia_t), 1),
+      grossCo2: fixed(num(y.co2.gross_t), 1),
+      deducted: fixed(num(y.co2.deductible_t), 1),
+      netCo2: fixed(num(y.co2.net_t), 1),
+      co2e: fixed(num(y.emissions.co2e_t), 1),
+      intensity: fixed(num(y.intensity.co2e_t_per_t_nh3), 3),
+    },
+    emissionsByGas: gasRows(input.runs),
+    intensities: intensityRowsOfYear(y, input.benchmarks, input.theoreticalMin),
+    uncertainty: [
+      { ...uncertaintyRow("Gross CO2, year", uncertaintyJson(y.uncertainty.co2)), note: "meter errors independent month to month; factor errors fully correlated across months" },
+      { ...uncertaintyRow("Net CO2, year", uncertaintyJson(y.uncertainty.net_co2)), note: "as above, with the meters of deducted transfers" },
+    ],
+    flags: flagRows([...y.flags, ...monthFlags], null),
+    revisions: revisionRows(input.revisions),
+    cautions: [...STATEMENT_CAUTIONS],
+    signOff: {
+      signer: input.signOff.signer,
+      role: input.signOff.role,
+      date: input.signOff.signedAt ? utcStamp(input.signOff.signedAt) : "not signed yet",
+      revision: String(input.revision),
+      certificateSubject: input.signOff.certificateSubject,
+      certificateFingerprint: input.signOff.certificateFingerprint,
+      verifyAt: input.signOff.verifyAt,
+    },
+  };
+}
+
+/** Key figures stored with the annual statement, for lists and the verification answer. */
+export function annualSummary(y: YearResult): Record<string, string> {
+  return {
+    ammonia: `${fixed(num(y.ammonia_t), 1)} t NH3`,
+    grossCo2: `${fixed(num(y.co2.gross_t), 1)} t CO2`,
+    netCo2: `${fixed(num(y.co2.net_t), 1)} t CO2`,
+    co2e: `${fixed(num(y.emissions.co2e_t), 1)} t CO2e`,
+    intensity: `${fixed(num(y.intensity.co2e_t_per_t_nh3), 3)} t CO2e/t NH3`,
+    uncertainty: `± ${fixed(num(y.uncertainty.co2.u95_pct), 2)} % (95 %)`,
+    months: `${y.months_included.length}`,
+  };
+}
