@@ -9,6 +9,7 @@ import { randomBytes } from "node:crypto";
 import { chromium, type Browser, type Page } from "playwright-core";
 import { DEMO_USERS } from "../../db/demo-users";
 import { runMonthEntry } from "./month-entry";
+import { securityChecks } from "./security";
 
 const BASE = (process.env.E2E_BASE_URL ?? "http://127.0.0.1:3000").replace(/\/+$/, "");
 const OUT = "test-results/e2e";
@@ -156,6 +157,8 @@ async function main(): Promise<void> {
     });
 
     await runMonthEntry(browser, { base: BASE, viewport, check, assert, shot, signIn });
+
+    await securityChecks({ browser, base: BASE, check, assert });
   } finally {
     await browser.close();
   }
