@@ -101,7 +101,8 @@ describe("every mutating route handler under app/api/v1", () => {
     const before = await auditCount();
     const wrong: string[] = [];
     for (const r of await mutatingRoutes()) {
-      for (const headers of [{ origin: EVIL }, { "sec-fetch-site": "cross-site" }]) {
+      const crossSite: Record<string, string>[] = [{ origin: EVIL }, { "sec-fetch-site": "cross-site" }];
+      for (const headers of crossSite) {
         const res = await call(r.file, r.handler, r.method, headers);
         const body = res.status === 403 ? await res.json() : null;
         if (body?.error?.code !== "cross_site_request") wrong.push(`${r.method} ${r.file} ${JSON.stringify(headers)} → ${res.status}`);
