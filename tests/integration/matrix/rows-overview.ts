@@ -1,0 +1,32 @@
+import { ROLES } from "@/lib/auth/roles";
+import type { MatrixContext, MatrixRow } from "./types";
+
+/** Rows of the overview's routes: the year series, the year export and the annual signature. */
+const req = (url = "http://matrix/") => new Request(url, { method: "GET" });
+const params = <P>(p: P) => ({ params: Promise.resolve(p) });
+const year = ({ target }: MatrixContext) => ({ siteId: target.siteId, year: "2026" });
+
+export const overviewRows: MatrixRow[] = [
+  {
+    id: "GET /api/v1/sites/[siteId]/years/[year]/series",
+    allowed: ROLES,
+    call: async (c) => (await import("@/app/api/v1/sites/[siteId]/years/[year]/series/route")).GET(req(), params(year(c))),
+  },
+  {
+    id: "GET /api/v1/sites/[siteId]/years/[year]/export",
+    allowed: ROLES,
+    call: async (c) => (await import("@/app/api/v1/sites/[siteId]/years/[year]/export/route")).GET(req("http://matrix/?format=csv"), params(year(c))),
+  },
+  {
+    // The fixture site has no months, so the signatory's call is refused for that reason: past the gate.
+    id: "app/(app)/sites/[siteId]/years/[year]/actions.ts#signAnnualStatementAction",
+    allowed: ["signatory"],
+    call: async ({ target }) => {
+      const { signAnnualStatementAction } = await import("@/app/(app)/sites/[siteId]/years/[year]/actions");
+      const form = new FormData();
+      form.set("siteId", target.siteId);
+      form.set("year", "2026");
+      return signAnnualStatementAction(null, form);
+    },
+  },
+];
