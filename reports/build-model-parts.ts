@@ -103,8 +103,8 @@ export function uncertaintyRow(figure: string, u: UncertaintyJson): UncertaintyR
   return {
     figure,
     value: { value: fixed(u.value_t, 1), unit: "t CO2" },
-    expanded: `± ${fixed(u.u95_t, 1)} t, ± ${fixed(u.u95_pct, 2)} % (${u.confidence_pct} % confidence, k = ${u.coverage_factor})`,
-    note: `meters: ${meters}${factors ? `; factors: ${factors}` : ""}${missing}`,
+    expanded: `± ${fixed(u.u95_pct, 2)} % (± ${fixed(u.u95_t, 1)} t)`,
+    note: `${u.confidence_pct} % confidence, k = ${u.coverage_factor}; meters: ${meters}${factors ? `; factors: ${factors}` : ""}${missing}`,
   };
 }
 

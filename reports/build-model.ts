@@ -27,6 +27,8 @@ export interface StreamFacts {
   /** How the month's figure was obtained: meter, estimate, invoice. */
   source: string | null;
   note: string | null;
+  /** The meter's stated uncertainty, % (site configuration), when the engine's tiers do not list it. */
+  uncertaintyPct?: string | null;
 }
 
 export interface MonthlyModelInput {
@@ -120,7 +122,7 @@ export function buildMonthlyModel(input: MonthlyModelInput): MonthlyStatementMod
       kind: KIND_LABELS[s.kind] ?? s.kind,
       quantity: { value: exact(s.quantity), unit: s.unit },
       dataSource: dataSource(facts),
-      uncertainty: uncertaintyOf(doc, s.id),
+      uncertainty: uncertaintyOf(doc, s.id, facts?.uncertaintyPct ?? null),
     };
   });
 
@@ -189,9 +191,9 @@ export function buildMonthlyModel(input: MonthlyModelInput): MonthlyStatementMod
   };
 }
 
-function uncertaintyOf(doc: ResultDocument, streamId: string): string {
-  const tier = doc.activity_tiers.find((t) => t.stream === streamId);
-  return tier?.uncertainty_pct ? `± ${fixed(tier.uncertainty_pct, 1)} %` : "not stated";
+function uncertaintyOf(doc: ResultDocument, streamId: string, configured: string | null): string {
+  const pct = doc.activity_tiers.find((t) => t.stream === streamId)?.uncertainty_pct ?? configured;
+  return pct ? `± ${fixed(pct, 1)} %` : "not stated";
 }
 
 /** Key figures kept with the stored statement for lists and the verification answer. */

@@ -15,10 +15,10 @@ export function EmissionsSections({ m }: { m: MonthlyStatementModel }) {
           columns={[
             { title: "Source", cell: (r) => r.source },
             { title: "Basis", cell: (r) => <span className="text-xs text-ink-soft">{r.basis}</span> },
-            { title: `CO2 (${u})`, numeric: true, cell: (r) => <span className="num">{r.co2}</span> },
+            { title: `CO2 (${u})`, numeric: true, cell: (r) => <span className="num whitespace-nowrap">{r.co2}</span> },
             { title: `CH4 (${u})`, numeric: true, cell: (r) => <span className="num">{r.ch4}</span> },
             { title: `N2O (${u})`, numeric: true, cell: (r) => <span className="num">{r.n2o}</span> },
-            { title: `CO2e (${u})`, numeric: true, cell: (r) => <span className="num">{r.co2e}</span> },
+            { title: `CO2e (${u})`, numeric: true, cell: (r) => <span className="num whitespace-nowrap">{r.co2e}</span> },
           ]}
           rows={m.emissionsBySource}
         />

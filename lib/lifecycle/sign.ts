@@ -26,6 +26,7 @@ export function streamFacts(bundle: MonthBundle): StreamFacts[] {
     calibratedOn: s.calibratedOn,
     source: readingOf.get(s.id)?.source ?? null,
     note: readingOf.get(s.id)?.note ?? null,
+    uncertaintyPct: s.uncertaintyPct,
   }));
 }
 

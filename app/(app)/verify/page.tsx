@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { pageTitle } from "@/components/ui/styles";
 import { requirePageActor } from "@/lib/auth/guard";
+import { verifyAction } from "./actions";
 import { VerifyDrop } from "./_components/verify-drop";
 
 export const metadata: Metadata = { title: "Verify a statement" };
@@ -13,7 +14,7 @@ export default async function VerifyPage() {
       <h1 className={pageTitle}>Verify a statement</h1>
       <p className="text-ink-soft">
         Drop a statement PDF here to check it against the statements signed for {actor.organisationName}. The file is hashed and
-        compared on the server and then forgotten; it is not stored.
+        compared on the server and then forgotten; it is not stored. Scripts can use POST /api/v1/verify.
       </p>
       <dl className="grid gap-x-4 gap-y-1 text-sm sm:grid-cols-[6rem_1fr]">
         <dt className="font-semibold">Issued</dt>
@@ -23,7 +24,7 @@ export default async function VerifyPage() {
         <dt className="font-semibold">Unknown</dt>
         <dd className="text-ink-soft">nothing in it points at a statement of this organisation.</dd>
       </dl>
-      <VerifyDrop />
+      <VerifyDrop action={verifyAction} />
     </div>
   );
 }

@@ -1,70 +1,56 @@
 "use client";
 
-import { useState, type DragEvent } from "react";
+import { useActionState, useRef, useState, type DragEvent } from "react";
 import { Notice } from "@/components/ui/status";
+import { buttonPrimary } from "@/components/ui/styles";
+import type { ActionResult } from "@/lib/auth/guard";
 import type { VerificationAnswer } from "@/lib/lifecycle/verification-answer";
-
-type Outcome = { kind: "answer"; file: string; answer: VerificationAnswer } | { kind: "error"; file: string; message: string };
 
 const TONE = { issued: "ok", altered: "fault", unknown: "warn" } as const;
 
-/** Drop zone (or file picker) that posts the PDF to /api/v1/verify and shows the verdict in words. */
-export function VerifyDrop() {
-  const [busy, setBusy] = useState(false);
-  const [over, setOver] = useState(false);
-  const [outcome, setOutcome] = useState<Outcome | null>(null);
+type Action = (prev: ActionResult<VerificationAnswer> | null, formData: FormData) => Promise<ActionResult<VerificationAnswer>>;
 
-  async function check(file: File) {
-    setBusy(true);
-    setOutcome(null);
-    try {
-      const body = new FormData();
-      body.set("file", file);
-      const res = await fetch("/api/v1/verify", { method: "POST", body });
-      const json = await res.json();
-      setOutcome(res.ok ? { kind: "answer", file: file.name, answer: json } : { kind: "error", file: file.name, message: json?.error?.message ?? `The server answered ${res.status}.` });
-    } catch {
-      setOutcome({ kind: "error", file: file.name, message: "The check could not reach the server; try again." });
-    } finally {
-      setBusy(false);
-    }
-  }
+/**
+ * A form (works before hydration) with a drop zone on top: dropping a file puts it in the file
+ * input and submits. The server action answers with the verdict in words.
+ */
+export function VerifyDrop({ action }: { action: Action }) {
+  const [state, formAction, pending] = useActionState(action, null);
+  const [over, setOver] = useState(false);
+  const form = useRef<HTMLFormElement>(null);
+  const fileInput = useRef<HTMLInputElement>(null);
 
   function onDrop(e: DragEvent) {
     e.preventDefault();
     setOver(false);
-    const f = e.dataTransfer.files[0];
-    if (f) void check(f);
+    if (!fileInput.current || e.dataTransfer.files.length === 0) return;
+    fileInput.current.files = e.dataTransfer.files;
+    form.current?.requestSubmit();
   }
 
   return (
     <div className="space-y-4">
-      <label
-        onDragOver={(e) => {
-          e.preventDefault();
-          setOver(true);
-        }}
-        onDragLeave={() => setOver(false)}
-        onDrop={onDrop}
-        className={`flex cursor-pointer flex-col items-center gap-1 border-2 border-dashed px-6 py-10 text-center ${over ? "border-accent bg-accent-wash" : "border-rule-strong bg-white"}`}
-      >
-        <span className="font-medium">{busy ? "Checking…" : "Drop a statement PDF here, or choose a file"}</span>
-        <span className="text-sm text-ink-soft">PDF, up to 20 MB</span>
-        <input
-          type="file"
-          accept="application/pdf,.pdf"
-          className="sr-only"
-          aria-label="Statement PDF to verify"
-          onChange={(e) => {
-            const f = e.target.files?.[0];
-            if (f) void check(f);
-            e.target.value = "";
+      <form ref={form} action={formAction}>
+        <div
+          onDragOver={(e) => {
+            e.preventDefault();
+            setOver(true);
           }}
-        />
-      </label>
+          onDragLeave={() => setOver(false)}
+          onDrop={onDrop}
+          className={`flex flex-col items-center gap-3 border-2 border-dashed px-6 py-8 text-center ${over ? "border-accent bg-accent-wash" : "border-rule-strong bg-white"}`}
+        >
+          <span className="font-medium">{pending ? "Checking…" : "Drop a statement PDF here, or choose a file and check it"}</span>
+          <input ref={fileInput} type="file" name="file" accept="application/pdf,.pdf" aria-label="Statement PDF to verify" className="text-sm" />
+          <button type="submit" className={buttonPrimary} disabled={pending}>
+            Check the file
+          </button>
+          <span className="text-xs text-ink-soft">PDF, up to 1 MB here; larger files through POST /api/v1/verify</span>
+        </div>
+      </form>
       <div aria-live="polite">
-        {outcome?.kind === "error" ? <Notice tone="fault" title={`Could not check ${outcome.file}`}>{outcome.message}</Notice> : null}
-        {outcome?.kind === "answer" ? <AnswerView file={outcome.file} a={outcome.answer} /> : null}
+        {state && !state.ok ? <Notice tone="fault" title="Could not check the file">{state.message}</Notice> : null}
+        {state?.ok && state.data ? <AnswerView file={state.message ?? "uploaded file"} a={state.data} /> : null}
       </div>
     </div>
   );

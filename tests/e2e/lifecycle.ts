@@ -1,0 +1,120 @@
+/**
+ * Browser test of review and sign-off, called from run.ts: the engineer balances an Open month of
+ * the demo's Estuary site, the officer sends it for sign-off, the signatory signs, the PDF
+ * downloads, and the auditor verifies it (issued) and a tampered copy (altered). Re-runnable:
+ * when no Open month is left, the officer first reopens a signed one.
+ */
+import { readFileSync } from "node:fs";
+import type { Browser, Page } from "playwright-core";
+import { DEMO_USERS } from "../../db/demo-users";
+
+export interface E2eKit {
+  browser: Browser;
+  base: string;
+  out: string;
+  viewport: { width: number; height: number };
+  check: (name: string, fn: () => Promise<void>) => Promise<void>;
+  assert: (cond: unknown, message: string) => asserts cond;
+  shot: (page: Page, name: string) => Promise<void>;
+  signIn: (page: Page, email: string, password: string) => Promise<void>;
+}
+
+const user = (role: string) => DEMO_USERS.find((u) => u.roles.includes(role as never))!;
+const SITE = "Estuary Works";
+
+export async function lifecycleChecks(k: E2eKit): Promise<void> {
+  const assert: E2eKit["assert"] = k.assert;
+  const pageAs = async (role: string) => {
+    const page = await (await k.browser.newContext({ viewport: k.viewport, acceptDownloads: true })).newPage();
+    // The review page runs the engine on the stored month; a cold development server compiles first.
+    page.setDefaultTimeout(60_000);
+    page.setDefaultNavigationTimeout(90_000);
+    const u = user(role);
+    await k.signIn(page, u.email, u.password);
+    await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"), { timeout: 20_000 });
+    return page;
+  };
+  const act = async (page: Page, button: string, state: string) => {
+    await page.getByRole("button", { name: button }).click();
+    await page.getByText(`Done: the month is now ${state}`).waitFor({ timeout: 60_000 });
+  };
+  /** A month of Estuary in the given state, by its review link (August is the drift month). */
+  const monthIn = async (page: Page, state: string): Promise<string | null> => {
+    await page.goto(`${k.base}/statements?year=2026`);
+    const block = page.locator("div", { has: page.getByRole("heading", { name: new RegExp(SITE) }) }).last();
+    const items = block.locator("li", { hasText: state });
+    for (let i = 0; i < (await items.count()); i++) {
+      const a = items.nth(i).getByRole("link");
+      const label = (await a.getAttribute("aria-label")) ?? "";
+      if (!label.includes("August")) return (await a.getAttribute("href"))!;
+    }
+    return null;
+  };
+
+  let review = "";
+  let pdfPath = "";
+  const engineer = await pageAs("process_engineer");
+  const officer = await pageAs("environmental_officer");
+
+  await k.check("engineer closes the balance of an Open month within tolerance", async () => {
+    let href = await monthIn(engineer, "Open");
+    if (!href) {
+      href = await monthIn(officer, "Signed");
+      assert(href, "no Open and no Signed month of Estuary left");
+      await officer.goto(`${k.base}${href}`);
+      await officer.getByLabel("Reason").fill("Browser test: reopened to exercise the life cycle again.");
+      await act(officer, "Reopen", "Open");
+    }
+    review = `${k.base}${href}`;
+    await engineer.goto(review);
+    await engineer.getByRole("heading", { name: /Review and sign-off/ }).first().waitFor();
+    assert(await engineer.getByText("All three balances close within the site's tolerance.").isVisible(), "tolerance precondition not shown");
+    await act(engineer, "Close the balance", "Balanced");
+  });
+
+  await k.check("officer sends it for sign-off", async () => {
+    await officer.goto(review);
+    assert(!(await officer.getByRole("button", { name: "Close the balance" }).count()), "officer offered the engineer's action");
+    await act(officer, "Send for sign-off", "In review");
+  });
+
+  const signatory = await pageAs("signatory");
+  await k.check("signatory signs it and the signed PDF downloads", async () => {
+    await signatory.goto(review);
+    await act(signatory, "Sign the statement", "Signed");
+    await signatory.reload();
+    await k.shot(signatory, "20-review-signed");
+    const link = signatory.getByRole("link", { name: /^Download PDF \(rev\. \d+\)$/ }).last();
+    const [download] = await Promise.all([signatory.waitForEvent("download"), link.click()]);
+    pdfPath = `${k.out}/signed-statement.pdf`;
+    await download.saveAs(pdfPath);
+    assert(readFileSync(pdfPath).subarray(0, 5).toString() === "%PDF-", "download is not a PDF");
+  });
+
+  const auditor = await pageAs("auditor");
+  await k.check("auditor sees the statement listed and verifies the download: issued", async () => {
+    await auditor.goto(`${k.base}/statements`);
+    await auditor.getByRole("heading", { name: "Signed statements" }).waitFor();
+    await k.shot(auditor, "21-statements");
+    await auditor.goto(`${k.base}/verify`);
+    // The drop zone is a client component: give it time to hydrate before handing it a file.
+    await auditor.waitForLoadState("networkidle");
+    await auditor.getByLabel("Statement PDF to verify").setInputFiles(pdfPath);
+    await auditor.getByRole("button", { name: "Check the file" }).click();
+    const answer = auditor.locator('[data-verdict="issued"]');
+    await answer.waitFor({ timeout: 30_000 });
+    assert((await answer.innerText()).includes(SITE), "issued answer does not name the site");
+    await k.shot(auditor, "22-verify-issued");
+  });
+
+  await k.check("a tampered copy is refused as altered", async () => {
+    const bytes = readFileSync(pdfPath);
+    const at = bytes.indexOf(SITE);
+    assert(at > 0, "site name not found in the PDF bytes");
+    bytes[at] = "F".charCodeAt(0);
+    await auditor.getByLabel("Statement PDF to verify").setInputFiles({ name: "tampered.pdf", mimeType: "application/pdf", buffer: bytes });
+    await auditor.getByRole("button", { name: "Check the file" }).click();
+    await auditor.locator('[data-verdict="altered"]').waitFor({ timeout: 30_000 });
+    await k.shot(auditor, "23-verify-altered");
+  });
+}
