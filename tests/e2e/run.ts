@@ -10,6 +10,7 @@ import { chromium, type Browser, type Page } from "playwright-core";
 import { DEMO_USERS } from "../../db/demo-users";
 import { runMonthEntry } from "./month-entry";
 import { securityChecks } from "./security";
+import { lifecycleChecks } from "./lifecycle";
 
 const BASE = (process.env.E2E_BASE_URL ?? "http://127.0.0.1:3000").replace(/\/+$/, "");
 const OUT = "test-results/e2e";
@@ -155,6 +156,8 @@ async function main(): Promise<void> {
       await auditorPage.goto(`${BASE}/audit`);
       await auditorPage.waitForURL(/\/sign-in/);
     });
+
+    await lifecycleChecks({ browser, base: BASE, out: OUT, viewport, check, assert, shot, signIn });
 
     await runMonthEntry(browser, { base: BASE, viewport, check, assert, shot, signIn });
 
