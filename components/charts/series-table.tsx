@@ -20,7 +20,7 @@ export function SeriesTable({ series }: { series: YearSeries }) {
     ["Meter named", ""],
   ];
   const t = series.totals;
-  const cell = "px-2.5 py-1 text-right num";
+  const cell = "px-2.5 py-1 text-right num whitespace-nowrap";
   return (
     <div className="overflow-x-auto border border-rule bg-white">
       <table className="w-full border-collapse text-sm">

@@ -9,6 +9,7 @@ import { randomBytes } from "node:crypto";
 import { chromium, type Browser, type Page } from "playwright-core";
 import { DEMO_USERS } from "../../db/demo-users";
 import { runMonthEntry } from "./month-entry";
+import { overviewChecks } from "./overview";
 import { securityChecks } from "./security";
 import { lifecycleChecks } from "./lifecycle";
 
@@ -160,6 +161,8 @@ async function main(): Promise<void> {
     await lifecycleChecks({ browser, base: BASE, out: OUT, viewport, check, assert, shot, signIn });
 
     await runMonthEntry(browser, { base: BASE, viewport, check, assert, shot, signIn });
+
+    await overviewChecks({ browser, base: BASE, viewport, check, assert, shot, signIn });
 
     await securityChecks({ browser, base: BASE, check, assert });
   } finally {
