@@ -13,7 +13,7 @@ export default async function VerifyPage() {
     <div className="max-w-3xl space-y-4">
       <h1 className={pageTitle}>Verify a statement</h1>
       <p className="text-ink-soft">
-        Drop a statement PDF here to check it against the statements signed for {actor.organisationName}. The file is hashed and
+        Drop a statement PDF here to check it against the statements signed for {actor.organisationName.replace(/\.$/, "")}. The file is hashed and
         compared on the server and then forgotten; it is not stored. Scripts can use POST /api/v1/verify.
       </p>
       <dl className="grid gap-x-4 gap-y-1 text-sm sm:grid-cols-[6rem_1fr]">

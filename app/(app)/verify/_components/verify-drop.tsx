@@ -84,7 +84,8 @@ function AnswerView({ file, a }: { file: string; a: VerificationAnswer }) {
             </dd>
             <dt className="text-ink-soft">Stored SHA-256</dt>
             <dd className="num break-all text-xs">{s.sha256}</dd>
-            {Object.entries(s.summary).map(([k, v]) => (
+            {/* Key figures only for a verified copy: beside an altered file they would read as its content. */}
+            {(a.verdict === "issued" ? Object.entries(s.summary) : []).map(([k, v]) => (
               <div key={k} className="contents">
                 <dt className="text-ink-soft">{SUMMARY_LABELS[k] ?? k}</dt>
                 <dd className="num">{v}</dd>
