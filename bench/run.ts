@@ -1,4 +1,106 @@
-// npm run bench — prints the engine timings (no assertions; numbers depend on the machine).
+// npm run bench — figures, not tests: nothing here passes or fails on a number. Prints the engine
+// timings, then (unless BENCH_ENGINE_ONLY=1) seeds a 50-site decade into a database of its own,
+// times statement PDFs and a 10 000-row CSV import, serves the production build and loads the
+// API with autocannon beside a trivial health route. Writes bench/results.md; stops what it started.
+import { spawnSync } from "node:child_process";
+import { writeFileSync } from "node:fs";
+import { loadavg } from "node:os";
+import { join } from "node:path";
+import { performance } from "node:perf_hooks";
+import { createDb } from "../db/client";
 import { formatTimings, runEngineBench } from "./engine";
+import { buildIfStale, signIn, startApp, type RunningApp } from "./app";
+import { benchDatabase, ROOT, type BenchDatabase } from "./cluster";
+import { measure, type LoadFigure } from "./load";
+import { timeStatements } from "./pdf";
+import { formatResults, type BenchFigures } from "./results";
+import { BENCH_PASSWORD, EXAMPLE_TEXT, seedFleet, SITE_COUNT } from "./seed";
 
-console.log(formatTimings(runEngineBench()));
+const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
+const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 10);
+const say = (line: string) => console.log(`[bench] ${line}`);
+
+const loadAtStart = loadavg();
+const engine = runEngineBench();
+console.log(formatTimings(engine));
+if (process.env.BENCH_ENGINE_ONLY === "1") process.exit(0);
+
+let database: BenchDatabase | null = null;
+let app: RunningApp | null = null;
+const cleanUp = () => {
+  app?.stop();
+  app = null;
+  database?.stop();
+  database = null;
+};
+process.once("SIGINT", () => {
+  cleanUp();
+  process.exit(130);
+});
+
+try {
+  const started = performance.now();
+  database = await benchDatabase();
+  say(`database: ${database.description}`);
+  const db = createDb(database.appUrl, 4);
+  const t0 = performance.now();
+  const fleet = await seedFleet(db);
+  const seedSeconds = (performance.now() - t0) / 1000;
+  await db.$client.end();
+  say(`seeded ${SITE_COUNT} sites, ${fleet.months} months, ${fleet.readings} readings in ${seedSeconds.toFixed(1)} s`);
+
+  const pdf = await timeStatements();
+  say(`statements: ${pdf.map((p) => `${p.label} render ${p.renderMs.toFixed(0)} ms + seal ${p.sealMs.toFixed(0)} ms`).join("; ")}`);
+
+  // lib/import is server-only: its timing runs in a child with the react-server condition.
+  const child = spawnSync(process.execPath, ["--conditions=react-server", "--import", "tsx", "bench/import-timing.ts"], {
+    cwd: ROOT,
+    encoding: "utf8",
+    env: { ...process.env, BENCH_DATABASE_URL: database.appUrl, BENCH_SITE_ID: fleet.siteIds[0], BENCH_USER_ID: fleet.userId, BENCH_ORG_ID: fleet.organisationId },
+  });
+  if (child.status !== 0) throw new Error(`CSV import timing failed: ${child.stderr.slice(-2000)}`);
+  const csv = JSON.parse(child.stdout.trim().split("\n").pop()!) as BenchFigures["csv"];
+  say(`CSV import: ${csv.rows} rows, check ${csv.previewMs.toFixed(0)} ms, commit ${csv.commitMs.toFixed(0)} ms`);
+
+  say(buildIfStale() ? "built the app into .next-bench" : "the build in .next-bench is current");
+  app = await startApp(database.appUrl);
+  const cookie = await signIn(app.base, fleet.email, BENCH_PASSWORD);
+  const signedIn = { cookie };
+  const site = fleet.siteIds[Math.floor(SITE_COUNT / 2)];
+  const targets = [
+    { label: "health (no session, no database)", path: "/api/v1/health" },
+    { label: "GET /api/v1/sites (50 sites)", path: "/api/v1/sites", headers: signedIn },
+    { label: `GET one month (${Math.round(fleet.readings / fleet.months)} readings, 2 analyses)`, path: `/api/v1/sites/${site}/months/2021-06`, headers: signedIn },
+    {
+      label: "POST /api/v1/calculate (example file)",
+      path: "/api/v1/calculate",
+      method: "POST" as const,
+      headers: { ...signedIn, "content-type": "application/json", origin: app.base },
+      body: EXAMPLE_TEXT,
+    },
+  ];
+  // One short warm-up request each, so the first measured second is not the JIT's.
+  for (const t of targets) await fetch(`${app.base}${t.path}`, { method: t.method ?? "GET", headers: t.headers, body: t.body }).then((r) => r.arrayBuffer());
+  const load: LoadFigure[] = [];
+  for (const t of targets) {
+    const f = await measure(app.base, t, SECONDS, CONNECTIONS);
+    say(`${f.label}: p50 ${f.p50} ms, p99 ${f.p99} ms, ${f.rps.toFixed(0)} req/s${f.failed ? `, ${f.failed} failed` : ""}`);
+    load.push(f);
+  }
+
+  const figures: BenchFigures = {
+    loadAtStart,
+    engine,
+    database: database.description,
+    seed: { sites: SITE_COUNT, months: fleet.months, readings: fleet.readings, seconds: seedSeconds },
+    load: { seconds: SECONDS, connections: CONNECTIONS, figures: load },
+    pdf,
+    csv,
+  };
+  const page = formatResults(figures);
+  writeFileSync(join(ROOT, "bench", "results.md"), page);
+  console.log(`\n${page}`);
+  say(`wrote bench/results.md in ${((performance.now() - started) / 1000).toFixed(0)} s`);
+} finally {
+  cleanUp();
+}

@@ -1,0 +1,71 @@
+/** The figures as a Markdown page (bench/results.md) and the machine they were measured on. */
+import { availableParallelism, cpus, totalmem } from "node:os";
+import type { Timing } from "./engine";
+import type { LoadFigure } from "./load";
+import type { PdfFigure } from "./pdf";
+
+export interface BenchFigures {
+  /** 1, 5 and 15-minute load averages when the bench began: other work on the machine skews every figure. */
+  loadAtStart: number[];
+  engine: Timing[];
+  database: string;
+  seed: { sites: number; months: number; readings: number; seconds: number };
+  load: { seconds: number; connections: number; figures: LoadFigure[] };
+  pdf: PdfFigure[];
+  csv: { rows: number; bytes: number; months: number; previewMs: number; commitMs: number };
+}
+
+export function machine(): string[] {
+  return [
+    `- date: ${new Date().toISOString().slice(0, 16).replace("T", " ")} UTC`,
+    `- CPU: ${availableParallelism()} cores (nproc), ${cpus()[0]?.model ?? "unknown model"}`,
+    `- memory: ${(totalmem() / 1024 ** 3).toFixed(1)} GiB`,
+    `- Node.js ${process.version} on ${process.platform}`,
+  ];
+}
+
+const ms = (x: number) => x.toFixed(x < 10 ? 2 : 1);
+
+export function formatResults(f: BenchFigures): string {
+  const base = f.load.figures.find((x) => x.label.startsWith("health"));
+  const loadRows = f.load.figures.map((x) => {
+    const ratio = base && x !== base ? `${(x.p50 / Math.max(base.p50, 0.01)).toFixed(1)}× / ${(base.rps / Math.max(x.rps, 0.01)).toFixed(1)}×` : "1× (yardstick)";
+    return `| ${x.label} | ${ms(x.p50)} | ${ms(x.p99)} | ${x.rps.toFixed(0)} | ${x.total} | ${x.failed} | ${ratio} |`;
+  });
+  return [
+    "# Synledger bench figures",
+    "",
+    "Written by `npm run bench`; numbers depend on the machine and on what else runs on it. The load",
+    "generator (autocannon) runs on the same cores as the app and PostgreSQL, over loopback.",
+    "",
+    "## Machine",
+    ...machine(),
+    `- load average when the bench began: ${f.loadAtStart.map((x) => x.toFixed(2)).join(", ")} (1, 5, 15 min; above the core count means other work shared the machine)`,
+    `- database: ${f.database}`,
+    "",
+    "## Engine (calculate with reconciliation, ms per document)",
+    "",
+    "| run | n | median | p90 | max |",
+    "| --- | ---: | ---: | ---: | ---: |",
+    ...f.engine.map((t) => `| ${t.label} | ${t.count} | ${ms(t.median)} | ${ms(t.p90)} | ${ms(t.max)} |`),
+    "",
+    `## HTTP load (${f.load.connections} connections, ${f.load.seconds} s per route, next start, signed-in session cookie)`,
+    "",
+    `Data: ${f.seed.sites} sites × 10 years = ${f.seed.months} months, ${f.seed.readings} monthly readings (each the sum of generated daily totals), seeded in ${f.seed.seconds.toFixed(1)} s.`,
+    "",
+    "| route | p50 ms | p99 ms | req/s | requests | non-2xx/errors | vs health (p50 / throughput) |",
+    "| --- | ---: | ---: | ---: | ---: | ---: | --- |",
+    ...loadRows,
+    "",
+    "## Statement PDFs (median of runs after a warm-up)",
+    "",
+    "| statement | render ms | seal ms (RSA 3072, SHA-256) | signed size | runs |",
+    "| --- | ---: | ---: | ---: | ---: |",
+    ...f.pdf.map((p) => `| ${p.label} | ${ms(p.renderMs)} | ${ms(p.sealMs)} | ${(p.bytes / 1024).toFixed(0)} KiB | ${p.runs} |`),
+    "",
+    "## CSV import (lib/import service against the bench database)",
+    "",
+    `${f.csv.rows} rows (${(f.csv.bytes / 1024).toFixed(0)} KiB, long layout, ${f.csv.months} months): check (parse + validate + compare) ${ms(f.csv.previewMs)} ms; commit (everything again + one transaction) ${ms(f.csv.commitMs)} ms.`,
+    "",
+  ].join("\n");
+}
