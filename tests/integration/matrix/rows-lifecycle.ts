@@ -1,0 +1,127 @@
+import { createHash, randomUUID } from "node:crypto";
+import { months, signingCertificates, statements } from "@/db/schema";
+import { ROLES } from "@/lib/auth/roles";
+import type { MatrixContext, MatrixRow } from "./types";
+
+/** Rows of the life cycle, statements, verification and signing-certificate routes and actions. */
+const PDF = Buffer.from("%PDF-1.4\n% matrix statement\n%%EOF\n");
+const form = (fields: Record<string, string | Blob>) => {
+  const fd = new FormData();
+  for (const [k, v] of Object.entries(fields)) fd.set(k, v);
+  return fd;
+};
+
+/** A stored certificate row (its bytes are never opened here) and a statement signed with it. */
+async function storedStatement({ db, target }: MatrixContext): Promise<string> {
+  const fingerprint = createHash("sha256").update(randomUUID()).digest("hex");
+  await db.insert(signingCertificates).values({
+    organisationId: target.id,
+    label: "matrix",
+    p12: Buffer.from("not a real bundle"),
+    passphraseSealed: "sealed",
+    subject: "CN=Matrix",
+    fingerprintSha256: fingerprint,
+    validFrom: new Date(Date.now() - 86_400_000),
+    validTo: new Date(Date.now() + 86_400_000),
+  });
+  const [row] = await db
+    .insert(statements)
+    .values({
+      organisationId: target.id,
+      siteId: target.siteId,
+      kind: "monthly",
+      period: "2026-03",
+      revision: 1,
+      pdf: PDF,
+      sha256: createHash("sha256").update(PDF).update(randomUUID()).digest("hex"),
+      signerUserId: target.members.signatory.id,
+      signerName: "Matrix signatory",
+      signerRole: "signatory",
+      signedAt: new Date(),
+      certificateFingerprint: fingerprint,
+      summary: {},
+    })
+    .returning({ id: statements.id });
+  return row.id;
+}
+
+async function openMonth({ db, target }: MatrixContext) {
+  const [m] = await db.insert(months).values({ siteId: target.siteId, period: "2026-03" }).onConflictDoNothing().returning();
+  return m?.version ?? 1;
+}
+
+export const lifecycleRows: MatrixRow[] = [
+  {
+    id: "GET /api/v1/statements/[id]/pdf",
+    allowed: ROLES,
+    call: async (ctx) => (await import("@/app/api/v1/statements/[id]/pdf/route")).GET(new Request("http://matrix/"), { params: Promise.resolve({ id: await storedStatement(ctx) }) }),
+  },
+  {
+    // Verification answers about the caller's own organisation: a file of another one is "unknown".
+    id: "POST /api/v1/verify",
+    allowed: ROLES,
+    async call(ctx) {
+      await storedStatement(ctx);
+      const res = await (await import("@/app/api/v1/verify/route")).POST(
+        new Request("http://matrix/", { method: "POST", body: PDF, headers: { "content-type": "application/pdf" } }),
+        { params: Promise.resolve({}) },
+      );
+      return res;
+    },
+    async crossOrgSeesNothing(result, ctx) {
+      const body = (await (result as Response).clone().json()) as { verdict?: string; status?: string };
+      const text = JSON.stringify(body);
+      return !text.includes(ctx.target.siteId) && !text.includes(ctx.target.name) && !/"issued"/.test(text);
+    },
+  },
+  {
+    id: "app/(app)/verify/actions.ts#verifyAction",
+    allowed: ROLES,
+    async call(ctx) {
+      await storedStatement(ctx);
+      const { verifyAction } = await import("@/app/(app)/verify/actions");
+      return verifyAction(null, form({ file: new File([PDF], "s.pdf", { type: "application/pdf" }) }));
+    },
+    async crossOrgSeesNothing(result, ctx) {
+      const text = JSON.stringify(result);
+      return !text.includes(ctx.target.siteId) && !text.includes(ctx.target.name) && !/"issued"/.test(text);
+    },
+  },
+  {
+    // A file that is no PKCS#12 is refused after the gate, with a message on the field.
+    id: "app/(app)/settings/signing/actions.ts#uploadCertificate",
+    allowed: ["administrator"],
+    call: async () =>
+      (await import("@/app/(app)/settings/signing/actions")).uploadCertificate(
+        null,
+        form({ label: "matrix certificate", passphrase: "x", p12: new File([Buffer.from("junk")], "c.p12") }),
+      ),
+    // The upload lands in the uploader's own organisation; none of target's certificates change.
+    async crossOrgSeesNothing(_result, { db, target }) {
+      const rows = await db.select().from(signingCertificates);
+      return !rows.some((r) => r.organisationId === target.id && r.label === "matrix certificate");
+    },
+  },
+  {
+    id: "app/(app)/settings/signing/actions.ts#activate",
+    allowed: ["administrator"],
+    async call(ctx) {
+      const statementId = await storedStatement(ctx);
+      const [s] = (await ctx.db.select().from(statements)).filter((x) => x.id === statementId);
+      const [cert] = (await ctx.db.select().from(signingCertificates)).filter((c) => c.fingerprintSha256 === s.certificateFingerprint);
+      return (await import("@/app/(app)/settings/signing/actions")).activate(null, form({ certificateId: cert.id }));
+    },
+  },
+  {
+    // The fixture month has no readings: an engineer's "balance" passes the gate and stops at its precondition.
+    id: "app/(app)/sites/[siteId]/months/[month]/review/actions.ts#transitionAction",
+    allowed: ["process_engineer"],
+    async call(ctx) {
+      const version = await openMonth(ctx);
+      return (await import("@/app/(app)/sites/[siteId]/months/[month]/review/actions")).transitionAction(
+        null,
+        form({ siteId: ctx.target.siteId, period: "2026-03", transition: "balance", expectedVersion: String(version) }),
+      );
+    },
+  },
+];
