@@ -44,6 +44,22 @@ export interface CalculationResult {
 
 export { CalculationInputError } from "./errors";
 
+/**
+ * Figures many orders of magnitude apart (one stream of 1e29 t beside meters of thousands) leave
+ * the reconciliation's covariance matrix singular even in 50 digits. That is bad input, reported
+ * as such (the API answers 400, the month page names it), not a failure of the engine.
+ */
+function reconcileOrExplain(flows: StreamFlow[], confidence: Dec): PlantReconciliation | null {
+  try {
+    return reconcilePlant(flows, confidence);
+  } catch (e) {
+    if (e instanceof Error && e.message === "singular matrix") {
+      throw new CalculationInputError("streams", "the quantities and uncertainties span too many orders of magnitude to reconcile the balances; check the figures for a misplaced unit or extra digits");
+    }
+    throw e;
+  }
+}
+
 export function analysisFigures(id: string, gas: GasProperties): AnalysisResult {
   const cv = calorificValues(gas, "15C", "15C");
   return {
@@ -72,7 +88,7 @@ export function calculate(doc: PlantMonth, options: CalculateOptions = {}): Calc
   });
   const balances = elementBalances(flows);
   const feed = feedFigures(flows);
-  const reconciliation = options.reconcile === false ? null : reconcilePlant(flows, options.confidence ?? dec("0.95"));
+  const reconciliation = options.reconcile === false ? null : reconcileOrExplain(flows, options.confidence ?? dec("0.95"));
   const analyses = Object.fromEntries(Object.entries(gases).map(([id, g]) => [id, analysisFigures(id, g)]));
   const partial = {
     site: doc.site,

@@ -69,7 +69,8 @@ const streamSchema = z.strictObject({
   destination: enumOf(DESTINATIONS, "destination").optional(),
   quantity: decimal("quantity"),
   unit: enumOf(UNITS, "unit"),
-  uncertainty_pct: decimal("value").optional(),
+  // Beyond 100 % a meter says nothing, and a huge σ beside small ones makes reconciliation's matrix singular.
+  uncertainty_pct: decimal("value").refine((d) => d.lte(HUNDRED), "uncertainty must be at most 100 (%)").optional(),
   factor_t_per_MWh: decimal("value").optional(),
   factor_t_per_GJ: decimal("value").optional(),
   meter: z.string().optional(),
