@@ -19,7 +19,7 @@ export const openApiDocument = {
     description:
       "Monthly figures of ammonia plants: sites, streams, readings, gas analyses, engine results, plant-month files and the audit trail. " +
       "Every error is { error: { code, message, issues?: [{ path, message }] } }. Engineering numbers are decimal strings. " +
-      "A person's session cookie may call every operation their role allows. A site API token (Authorization: Bearer syl_…) may only write readings of its own site and read that site's streams.",
+      "A person's session cookie may call every operation their role allows; a POST, PUT or DELETE made with the cookie must come from the app's own pages (an Origin header of another site is refused with 403 cross_site_request). A site API token (Authorization: Bearer syl_…) may only write readings of its own site and read that site's streams.",
   },
   servers: [{ url: "/" }],
   security: asPerson,
