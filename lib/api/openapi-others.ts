@@ -19,7 +19,28 @@ const download = (mediaType: string, description: string) => ({
   content: { [mediaType]: { schema: { type: "string", format: "binary" } } },
 });
 
+const year = [params.siteId, { name: "year", in: "path", required: true, description: "calendar year YYYY", schema: { type: "string", pattern: "^\\d{4}$" } }];
+
 export const otherPaths = {
+  "/api/v1/sites/{siteId}/years/{year}/series": {
+    get: {
+      summary: "Twelve months of the year as computed by the engine: production, intensities, energy, closures, H2:N2, suspect meters (nulls for months not started)",
+      parameters: year,
+      responses: responses(json({ type: "object", properties: { months: { type: "array", items: { type: "object" } } } }), ["400", "401", "403", "404"]),
+    },
+  },
+  "/api/v1/sites/{siteId}/years/{year}/export": {
+    get: {
+      summary: "The year (or one month with month=YYYY-MM) as CSV with units in the headers, or format=json: the twelve plant-month files",
+      parameters: [
+        ...year,
+        { name: "format", in: "query", schema: { enum: ["csv", "json"] } },
+        { name: "month", in: "query", schema: { type: "string" } },
+        { name: "table", in: "query", schema: { enum: ["sources", "rule-sets"] } },
+      ],
+      responses: responses(download("text/csv", "CSV or JSON file"), ["400", "401", "403", "404"]),
+    },
+  },
   "/api/v1/sites/{siteId}/imports": {
     get: { summary: "Recent CSV import batches and saved column mappings of the site", parameters: site, responses: responses(json({ type: "object", properties: { batches: { type: "array", items: { type: "object" } }, mappings: { type: "array", items: { type: "object" } } } }), ["401", "403", "404"]) },
   },

@@ -9,17 +9,12 @@ export const tooLarge = (what: string, size: number, limit: number) =>
   new HttpError(413, "too_large", `${what} is ${formatBytes(size)}; the limit is ${formatBytes(limit)}.`);
 
 /**
- * Reads a multipart body, refusing it once it passes the limit instead of buffering whatever a
- * client sends (Content-Length can be absent or wrong with chunked uploads).
+ * Reads a request body into memory, refusing it once it passes `limit` bytes instead of
+ * buffering whatever a client sends (Content-Length can be absent or wrong with chunked uploads).
  */
-export async function readLimitedForm(req: Request, maxFileBytes: number): Promise<FormData> {
-  const type = req.headers.get("content-type") ?? "";
-  if (!type.toLowerCase().startsWith("multipart/form-data")) {
-    throw new HttpError(415, "unsupported_media_type", "Send the file as multipart/form-data with a field named \"file\".");
-  }
-  const limit = maxFileBytes + FORM_OVERHEAD;
+export async function readLimitedBytes(req: Request, limit: number, what = "The upload", shownLimit = limit): Promise<Buffer> {
   const declared = Number(req.headers.get("content-length") ?? "0");
-  if (declared > limit) throw tooLarge("The upload", declared, maxFileBytes);
+  if (declared > limit) throw tooLarge(what, declared, shownLimit);
   const chunks: Uint8Array[] = [];
   let total = 0;
   if (req.body) {
@@ -30,13 +25,23 @@ export async function readLimitedForm(req: Request, maxFileBytes: number): Promi
       total += value.byteLength;
       if (total > limit) {
         await reader.cancel();
-        throw tooLarge("The upload", total, maxFileBytes);
+        throw tooLarge(what, total, shownLimit);
       }
       chunks.push(value);
     }
   }
+  return Buffer.concat(chunks);
+}
+
+/** Reads a multipart body within the limit (see readLimitedBytes). */
+export async function readLimitedForm(req: Request, maxFileBytes: number): Promise<FormData> {
+  const type = req.headers.get("content-type") ?? "";
+  if (!type.toLowerCase().startsWith("multipart/form-data")) {
+    throw new HttpError(415, "unsupported_media_type", "Send the file as multipart/form-data with a field named \"file\".");
+  }
+  const bytes = await readLimitedBytes(req, maxFileBytes + FORM_OVERHEAD, "The upload", maxFileBytes);
   try {
-    return await new Response(Buffer.concat(chunks), { headers: { "content-type": type } }).formData();
+    return await new Response(new Uint8Array(bytes), { headers: { "content-type": type } }).formData();
   } catch {
     throw new HttpError(400, "invalid_input", "The multipart body could not be read.");
   }
