@@ -18,9 +18,19 @@ export function ContextSwitcher({ sites, defaultMonth }: { sites: SiteOption[]; 
   const params = useParams<{ siteId?: string; month?: string }>();
   const router = useRouter();
   const currentSite = sites.find((s) => s.id === params.siteId)?.id ?? sites[0]?.id ?? "";
+  const currentMonth = params.month ?? defaultMonth;
   const [siteId, setSiteId] = useState(currentSite);
-  const [month, setMonth] = useState(params.month ?? defaultMonth);
+  const [month, setMonth] = useState(currentMonth);
   const [error, setError] = useState<string | null>(null);
+  // The header stays mounted across client-side navigation: follow the site and month in the URL,
+  // or "Open month" would open the site shown before the last link was followed.
+  const [inUrl, setInUrl] = useState(`${currentSite}/${currentMonth}`);
+  if (inUrl !== `${currentSite}/${currentMonth}`) {
+    setInUrl(`${currentSite}/${currentMonth}`);
+    setSiteId(currentSite);
+    setMonth(currentMonth);
+    setError(null);
+  }
 
   if (sites.length === 0) {
     return (

@@ -1,10 +1,11 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { notFound } from "next/navigation";
 import { MonthEntryForm } from "@/components/month/month-entry-form";
 import { monthEntryProps } from "@/components/month/month-entry-props";
 import { formatDateTime, formatMonth, isMonthKey } from "@/components/ui/format";
 import { MonthStateBadge } from "@/components/ui/month-state";
-import { pageTitle } from "@/components/ui/styles";
+import { link, pageTitle } from "@/components/ui/styles";
 import { getDb } from "@/db";
 import { loadMonthBundle, methodOf } from "@/db/queries/months";
 import { previousAnalyses } from "@/db/queries/streams";
@@ -49,7 +50,20 @@ export default async function MonthPage({ params }: { params: Promise<Params> })
       <div className="flex flex-wrap items-end justify-between gap-3">
         <div>
           <p className="text-sm text-ink-soft">
-            {site.name} <span className="num text-ink-faint">{site.code}</span>
+            {site.name} <span className="num text-ink-faint">{site.code}</span> ·{" "}
+            <Link className={link} href={`/sites/${site.id}/months/${month}/review`}>
+              review and sign-off
+            </Link>
+            {/* The CSV import wizard had no way in from the app: it opens from the month it fills. */}
+            {can(actor, "month:enter") && !site.archivedAt ? (
+              <>
+                {" "}
+                ·{" "}
+                <Link className={link} href={`/sites/${site.id}/import`}>
+                  import figures from a CSV file
+                </Link>
+              </>
+            ) : null}
           </p>
           <h1 className={pageTitle}>{formatMonth(month)}</h1>
         </div>
