@@ -12,6 +12,7 @@ import { runMonthEntry } from "./month-entry";
 import { overviewChecks } from "./overview";
 import { securityChecks } from "./security";
 import { lifecycleChecks } from "./lifecycle";
+import { journeyChecks } from "./journey";
 
 const BASE = (process.env.E2E_BASE_URL ?? "http://127.0.0.1:3000").replace(/\/+$/, "");
 const OUT = "test-results/e2e";
@@ -163,6 +164,8 @@ async function main(): Promise<void> {
     await runMonthEntry(browser, { base: BASE, viewport, check, assert, shot, signIn });
 
     await overviewChecks({ browser, base: BASE, viewport, check, assert, shot, signIn });
+
+    await journeyChecks({ browser, base: BASE, out: OUT, viewport, check, assert, shot, signIn });
 
     await securityChecks({ browser, base: BASE, check, assert });
   } finally {
