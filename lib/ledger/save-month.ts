@@ -16,6 +16,11 @@ import { monthFiguresSchema, PERIOD, type MonthFiguresInput } from "@/lib/valida
 /** Months in these states are frozen: only the life cycle (reopen) may change them. */
 export const READ_ONLY_STATES = ["in_review", "signed", "submitted"] as const;
 
+/** The calendar month now, "YYYY-MM" (UTC): figures of later months cannot exist yet. */
+export function currentPeriod(now = new Date()): string {
+  return `${now.getUTCFullYear()}-${String(now.getUTCMonth() + 1).padStart(2, "0")}`;
+}
+
 export interface Editor {
   organisationId: string;
   userId: string | null;
@@ -36,6 +41,9 @@ export interface SaveResult {
  */
 export async function saveMonthFigures(db: Db, editor: Editor, siteId: string, period: string, raw: MonthFiguresInput): Promise<SaveResult> {
   if (!PERIOD.test(period)) throw new HttpError(400, "invalid_input", `"${period}" is not a month (YYYY-MM).`, [{ path: "month", message: "must be YYYY-MM" }]);
+  if (period > currentPeriod()) {
+    throw new HttpError(400, "future_month", `${period} has not begun yet; its figures can be entered from its first day.`, [{ path: "month", message: "is a month in the future" }]);
+  }
   const input = monthFiguresSchema.parse(raw);
   return db.transaction(async (tx) => {
     const site = await findSite(tx, editor.organisationId, siteId);

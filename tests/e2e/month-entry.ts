@@ -6,6 +6,7 @@
  */
 import type { Browser, Page } from "playwright-core";
 import { DEMO_USERS } from "../../db/demo-users";
+import { demoSite } from "../../lib/demo/scenario";
 
 export interface E2eKit {
   base: string;
@@ -26,7 +27,11 @@ export async function runMonthEntry(browser: Browser, kit: E2eKit): Promise<void
   const { base, check, shot } = kit;
   const assert: E2eKit["assert"] = (cond, message) => kit.assert(cond, message);
   // A month nobody has touched, so the test starts from an empty form on every run.
-  const period = `20${40 + Math.floor(Math.random() * 50)}-${String(1 + Math.floor(Math.random() * 12)).padStart(2, "0")}`;
+  // A past month the demo does not hold (figures of future months are refused), random so re-runs find it empty.
+  const year = 2000 + Math.floor(Math.random() * 25);
+  const monthNo = 2 + Math.floor(Math.random() * 11);
+  const period = `${year}-${String(monthNo).padStart(2, "0")}`;
+  const previous = `${year}-${String(monthNo - 1).padStart(2, "0")}`;
   const nh3 = `43763.${String(Math.floor(Math.random() * 90) + 10)}`;
   TOTALS[4] = nh3;
   let url = "";
@@ -37,6 +42,14 @@ export async function runMonthEntry(browser: Browser, kit: E2eKit): Promise<void
     await page.waitForURL(`${base}/`, { timeout: 20_000 });
     const siteId = await page.locator("#ctx-site option", { hasText: "Estuary Works" }).getAttribute("value");
     assert(siteId, "Estuary Works is not in the site picker");
+    // The month before holds the lab analyses, as a running plant's ledger would; the form offers to start from them.
+    for (const [key, components] of Object.entries(demoSite("estuary").analyses)) {
+      const res = await page.request.put(`${base}/api/v1/sites/${siteId}/months/${previous}/analyses/${key}`, {
+        data: { components },
+        headers: { origin: base },
+      });
+      assert(res.ok(), `analysis ${key} of ${previous} not stored: ${res.status()} ${await res.text()}`);
+    }
     url = `${base}/sites/${siteId}/months/${period}`;
     await page.goto(url);
     await page.locator("form[data-interactive]").waitFor();

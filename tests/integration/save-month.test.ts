@@ -93,6 +93,14 @@ describe("saveMonthFigures", () => {
     });
   });
 
+  it("refuses figures for a month that has not begun", async () => {
+    const next = new Date();
+    next.setUTCMonth(next.getUTCMonth() + 1, 1);
+    const period = `${next.getUTCFullYear()}-${String(next.getUTCMonth() + 1).padStart(2, "0")}`;
+    const err = await refusal(() => saveMonthFigures(testDb(), editor, org.siteId, period, { expectedVersion: 0 }));
+    expect(err).toMatchObject({ status: 400, code: "future_month", issues: [{ path: "month", message: "is a month in the future" }] });
+  });
+
   it("treats another organisation's site as not found", async () => {
     const err = await refusal(() => saveMonthFigures(testDb(), editor, other.siteId, "2026-04", { expectedVersion: 0 }));
     expect(err.status).toBe(404);
