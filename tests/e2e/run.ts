@@ -152,9 +152,10 @@ async function main(): Promise<void> {
       await shot(auditorPage, "08-auditor-audit");
     });
     await check("signing out returns to the sign-in page", async () => {
-      await auditorPage.goto(`${BASE}/`);
+      // The overview streams its cards in; click once they have arrived, as a person would.
+      await auditorPage.goto(`${BASE}/`, { waitUntil: "networkidle" });
       await auditorPage.getByRole("button", { name: "Sign out" }).click();
-      await auditorPage.waitForURL(/\/sign-in/);
+      await auditorPage.waitForURL(/\/sign-in/, { timeout: 60_000 });
       await auditorPage.goto(`${BASE}/audit`);
       await auditorPage.waitForURL(/\/sign-in/);
     });
