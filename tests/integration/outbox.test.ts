@@ -1,6 +1,6 @@
 import { randomUUID } from "node:crypto";
 import { eq, inArray, sql } from "drizzle-orm";
-import { afterAll, describe, expect, it } from "vitest";
+import { afterAll, beforeEach, describe, expect, it } from "vitest";
 import { mailOutbox } from "@/db/schema";
 import { backoffSeconds, deliverPending, enqueueMail, type MailSender } from "@/lib/mail/outbox";
 import { closeTestDb, testDb } from "../support/db";
@@ -27,6 +27,15 @@ function fakeSender() {
 }
 
 describe("mail outbox", () => {
+  // The outbox is shared by every test file: deliver what earlier files queued, so each test
+  // here sees only its own messages in a batch.
+  beforeEach(async () => {
+    for (;;) {
+      const r = await deliverPending(testDb(), fakeSender(), { limit: 500 });
+      if (r.sent + r.retried + r.failed === 0) break;
+    }
+  });
+
   it("a message queued in a transaction that rolls back is never stored", async () => {
     const m = msg("rolled-back");
     await testDb()
