@@ -3,14 +3,17 @@
  * organisation and as a member (holding every role) of another organisation. A route or
  * action without a row here fails the discovery test.
  */
+import { randomUUID } from "node:crypto";
 import { readdirSync, readFileSync, statSync } from "node:fs";
 import { join, relative } from "node:path";
 import { afterAll, describe, expect, it, vi } from "vitest";
+import { apiTokens } from "@/db/schema";
+import { hashApiToken } from "@/lib/api/tokens";
 import { ROLES } from "@/lib/auth/roles";
 import { closeTestDb, testDb } from "../support/db";
 import { createOrg } from "../support/fixtures";
 import { actAs } from "../support/mock-auth";
-import { outcomeOf, type MatrixRow, type Outcome } from "./matrix/types";
+import { outcomeOf, setMatrixBearer, type MatrixRow, type Outcome } from "./matrix/types";
 
 vi.mock("@/auth", () => import("../support/mock-auth"));
 vi.mock("next/cache", () => ({ revalidatePath: () => undefined, revalidateTag: () => undefined }));
@@ -84,6 +87,25 @@ describe("authorization matrix", () => {
           const target = await createOrg(testDb(), "Matrix");
           actAs(target.session(role));
           expect((await attempt(row, target)).outcome).toBe(expected);
+        });
+      }
+      if (/^(GET|POST|PUT|PATCH|DELETE) \/api\/v1\//.test(row.id)) {
+        const tokenAllowed = row.token === "allowed";
+        it(tokenAllowed ? "accepts a machine token of the site" : "refuses a machine token of the site", async () => {
+          const target = await createOrg(testDb(), "Matrix");
+          const token = `syl_matrix_${randomUUID().replace(/-/g, "")}`;
+          await testDb()
+            .insert(apiTokens)
+            .values({ organisationId: target.id, siteId: target.siteId, label: "matrix", prefix: token.slice(0, 12), tokenHash: hashApiToken(token) });
+          actAs(null);
+          setMatrixBearer(token);
+          try {
+            const { outcome } = await attempt(row, target);
+            if (tokenAllowed) expect(outcome).toBe("allowed");
+            else expect(["unauthorized", "forbidden"]).toContain(outcome);
+          } finally {
+            setMatrixBearer(null);
+          }
         });
       }
       it("gives a member of another organisation (holding every role) nothing of this one", async () => {

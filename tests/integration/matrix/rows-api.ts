@@ -2,12 +2,12 @@ import { randomUUID } from "node:crypto";
 import { recordAudit } from "@/db/queries/audit";
 import { apiTokens, months } from "@/db/schema";
 import { ROLES } from "@/lib/auth/roles";
-import type { MatrixContext, MatrixRow } from "./types";
+import { type MatrixContext, type MatrixRow, matrixRequest } from "./types";
 
 /** Rows of the REST API v1 read/write routes, the audit export and the API-token actions. */
 const MONTH = "2026-03";
 const req = (method: string, body?: string) =>
-  new Request("http://matrix/", { method, body, headers: body ? { "content-type": "application/json" } : undefined });
+  matrixRequest("http://matrix/", { method, body, headers: body ? { "content-type": "application/json" } : undefined });
 const params = <P>(p: P) => ({ params: Promise.resolve(p) });
 const site = ({ target }: MatrixContext) => ({ siteId: target.siteId });
 const month = (ctx: MatrixContext) => ({ ...site(ctx), month: MONTH });
@@ -45,18 +45,20 @@ export const apiRows: MatrixRow[] = [
     crossOrgSeesNothing: mentionsNothingOf,
   },
   { id: "GET /api/v1/sites/[siteId]", allowed: ROLES, call: async (c) => (await import("@/app/api/v1/sites/[siteId]/route")).GET(req("GET"), params(site(c))) },
-  { id: "GET /api/v1/sites/[siteId]/streams", allowed: ROLES, call: async (c) => (await import("@/app/api/v1/sites/[siteId]/streams/route")).GET(req("GET"), params(site(c))) },
+  { id: "GET /api/v1/sites/[siteId]/streams", allowed: ROLES, token: "allowed", call: async (c) => (await import("@/app/api/v1/sites/[siteId]/streams/route")).GET(req("GET"), params(site(c))) },
   { id: "GET /api/v1/sites/[siteId]/months", allowed: ROLES, call: async (c) => (await import("@/app/api/v1/sites/[siteId]/months/route")).GET(req("GET"), params(site(c))) },
   { id: "GET /api/v1/sites/[siteId]/months/[month]", allowed: ROLES, call: async (c) => (await import("@/app/api/v1/sites/[siteId]/months/[month]/route")).GET(req("GET"), params(month(c))) },
   {
     id: "PUT /api/v1/sites/[siteId]/months/[month]",
     allowed: ["process_engineer"],
+    token: "allowed",
     call: async (c) => (await import("@/app/api/v1/sites/[siteId]/months/[month]/route")).PUT(req("PUT", JSON.stringify({ expectedVersion: 0, readings: [] })), params(month(c))),
   },
   {
     // The fixture site has no streams, so an allowed call ends in 400 (unknown stream): past the gate.
     id: "PUT /api/v1/sites/[siteId]/months/[month]/readings/[stream]",
     allowed: ["process_engineer"],
+    token: "allowed",
     call: async (c) =>
       (await import("@/app/api/v1/sites/[siteId]/months/[month]/readings/[stream]/route")).PUT(
         req("PUT", JSON.stringify({ quantity: "1", unit: "t" })),
@@ -92,7 +94,7 @@ export const apiRows: MatrixRow[] = [
     allowed: ROLES,
     async call({ db, target }) {
       await recordAudit(db, { organisationId: target.id, actorLabel: `marker ${target.id}`, channel: "system", action: "matrix.marker", entity: "matrix" });
-      return (await import("@/app/api/v1/audit/export/route")).GET(new Request("http://matrix/api/v1/audit/export"), params({}));
+      return (await import("@/app/api/v1/audit/export/route")).GET(matrixRequest("http://matrix/api/v1/audit/export"), params({}));
     },
     crossOrgSeesNothing: mentionsNothingOf,
   },

@@ -1,5 +1,5 @@
 import { attachments } from "@/db/schema";
-import type { MatrixContext, MatrixRow } from "./types";
+import { type MatrixContext, type MatrixRow, matrixRequest } from "./types";
 
 /** Rows of the CSV import and attachment routes (their own file, beside the other teams'). */
 const csv = "Date,Tag,Total\n01/03/2026,feed,1\n";
@@ -10,7 +10,7 @@ function upload(fields: Record<string, string>, file: { text: string; name: stri
   const fd = new FormData();
   fd.set("file", new File([file.text], file.name, { type: file.type }));
   for (const [k, v] of Object.entries(fields)) fd.set(k, v);
-  return new Request("http://matrix/", { method: "POST", body: fd });
+  return matrixRequest("http://matrix/", { method: "POST", body: fd });
 }
 
 /** An attachment nobody in particular uploaded, so only an administrator may delete it. */
@@ -30,7 +30,7 @@ export const importAttachmentRows: MatrixRow[] = [
     allowed: ALL,
     async call({ target }) {
       const { GET } = await import("@/app/api/v1/sites/[siteId]/imports/route");
-      return GET(new Request("http://matrix/"), { params: Promise.resolve({ siteId: target.siteId }) });
+      return GET(matrixRequest("http://matrix/"), { params: Promise.resolve({ siteId: target.siteId }) });
     },
   },
   {
@@ -55,7 +55,7 @@ export const importAttachmentRows: MatrixRow[] = [
     allowed: ALL,
     async call({ target }) {
       const { GET } = await import("@/app/api/v1/sites/[siteId]/months/[month]/attachments/route");
-      return GET(new Request("http://matrix/"), { params: Promise.resolve({ siteId: target.siteId, month: "2026-03" }) });
+      return GET(matrixRequest("http://matrix/"), { params: Promise.resolve({ siteId: target.siteId, month: "2026-03" }) });
     },
   },
   {
@@ -71,7 +71,7 @@ export const importAttachmentRows: MatrixRow[] = [
     allowed: ALL,
     async call(ctx) {
       const { GET } = await import("@/app/api/v1/attachments/[attachmentId]/route");
-      return GET(new Request("http://matrix/"), { params: Promise.resolve({ attachmentId: await storedAttachment(ctx) }) });
+      return GET(matrixRequest("http://matrix/"), { params: Promise.resolve({ attachmentId: await storedAttachment(ctx) }) });
     },
   },
   {
@@ -79,7 +79,7 @@ export const importAttachmentRows: MatrixRow[] = [
     allowed: ["administrator"],
     async call(ctx) {
       const { DELETE } = await import("@/app/api/v1/attachments/[attachmentId]/route");
-      return DELETE(new Request("http://matrix/", { method: "DELETE" }), { params: Promise.resolve({ attachmentId: await storedAttachment(ctx) }) });
+      return DELETE(matrixRequest("http://matrix/", { method: "DELETE" }), { params: Promise.resolve({ attachmentId: await storedAttachment(ctx) }) });
     },
   },
 ];

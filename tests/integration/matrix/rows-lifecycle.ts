@@ -1,7 +1,7 @@
 import { createHash, randomUUID } from "node:crypto";
 import { months, signingCertificates, statements } from "@/db/schema";
 import { ROLES } from "@/lib/auth/roles";
-import type { MatrixContext, MatrixRow } from "./types";
+import { type MatrixContext, type MatrixRow, matrixRequest } from "./types";
 
 /** Rows of the life cycle, statements, verification and signing-certificate routes and actions. */
 const PDF = Buffer.from("%PDF-1.4\n% matrix statement\n%%EOF\n");
@@ -54,7 +54,7 @@ export const lifecycleRows: MatrixRow[] = [
   {
     id: "GET /api/v1/statements/[id]/pdf",
     allowed: ROLES,
-    call: async (ctx) => (await import("@/app/api/v1/statements/[id]/pdf/route")).GET(new Request("http://matrix/"), { params: Promise.resolve({ id: await storedStatement(ctx) }) }),
+    call: async (ctx) => (await import("@/app/api/v1/statements/[id]/pdf/route")).GET(matrixRequest("http://matrix/"), { params: Promise.resolve({ id: await storedStatement(ctx) }) }),
   },
   {
     // Verification answers about the caller's own organisation: a file of another one is "unknown".
@@ -63,7 +63,7 @@ export const lifecycleRows: MatrixRow[] = [
     async call(ctx) {
       await storedStatement(ctx);
       const res = await (await import("@/app/api/v1/verify/route")).POST(
-        new Request("http://matrix/", { method: "POST", body: PDF, headers: { "content-type": "application/pdf" } }),
+        matrixRequest("http://matrix/", { method: "POST", body: PDF, headers: { "content-type": "application/pdf" } }),
         { params: Promise.resolve({}) },
       );
       return res;

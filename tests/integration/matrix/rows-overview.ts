@@ -1,8 +1,8 @@
 import { ROLES } from "@/lib/auth/roles";
-import type { MatrixContext, MatrixRow } from "./types";
+import { type MatrixContext, type MatrixRow, matrixRequest } from "./types";
 
 /** Rows of the overview's routes: the year series, the year export and the annual signature. */
-const req = (url = "http://matrix/") => new Request(url, { method: "GET" });
+const req = (url = "http://matrix/") => matrixRequest(url, { method: "GET" });
 const params = <P>(p: P) => ({ params: Promise.resolve(p) });
 const year = ({ target }: MatrixContext) => ({ siteId: target.siteId, year: "2026" });
 

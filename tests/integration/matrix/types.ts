@@ -49,3 +49,17 @@ export async function outcomeOf(result: unknown): Promise<Outcome> {
   }
   return "allowed";
 }
+
+let bearer: string | null = null;
+
+/** The harness sets a machine token here; every row's request then carries it. */
+export function setMatrixBearer(token: string | null): void {
+  bearer = token;
+}
+
+/** A Request as a row makes it, with the harness's bearer token when one is set. */
+export function matrixRequest(url: string, init: RequestInit = {}): Request {
+  const headers = new Headers(init.headers);
+  if (bearer) headers.set("authorization", `Bearer ${bearer}`);
+  return new Request(url, { ...init, headers });
+}
