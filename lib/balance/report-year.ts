@@ -39,6 +39,7 @@ export function formatYearReport(y: YearRollUp): string {
         ...Object.entries(r.transfers_by_destination).map(([k, v]) => [`CO2 transferred to ${k}`, fx(v, 1), "t CO2"]),
         ["direct CO2e intensity", fx(r.intensity.co2e_t_per_t_nh3, 4), "t CO2e/t NH3"],
         ["net CO2e intensity", fx(r.intensity.net_co2e_t_per_t_nh3, 4), "t CO2e/t NH3"],
+        [`CO2e with imported electricity and steam${r.intensity.indirect_complete ? "" : " (incomplete)"}`, fx(r.intensity.co2e_incl_indirect_t_per_t_nh3, 4), "t CO2e/t NH3"],
         ["energy, feed + fuel", fx(r.intensity.gj_lhv_per_t_nh3, 3), "GJ LHV/t NH3"],
       ],
       1,

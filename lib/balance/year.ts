@@ -81,6 +81,9 @@ export function toYearDocument(y: YearRollUp) {
       co2e_t_per_t_nh3: num(r.intensity.co2e_t_per_t_nh3),
       net_co2e_t_per_t_nh3: num(r.intensity.net_co2e_t_per_t_nh3),
       gj_lhv_per_t_nh3: num(r.intensity.gj_lhv_per_t_nh3),
+      indirect_co2e_t: num(r.intensity.indirect_co2e_t),
+      indirect_complete: r.intensity.indirect_complete,
+      co2e_incl_indirect_t_per_t_nh3: num(r.intensity.co2e_incl_indirect_t_per_t_nh3),
     },
     uncertainty: {
       model: "factor part correlated across months (added linearly per factor); meter part independent (added in quadrature); 95 %, k = 1.96",

@@ -13,7 +13,16 @@ export interface YearResult {
   emissions: EmissionsResult["emissions"];
   co2: EmissionsResult["co2"];
   transfers_by_destination: Record<Destination, Decimal>;
-  intensity: { co2e_t_per_t_nh3: Decimal | null; net_co2e_t_per_t_nh3: Decimal | null; gj_lhv_per_t_nh3: Decimal | null };
+  intensity: {
+    co2e_t_per_t_nh3: Decimal | null;
+    net_co2e_t_per_t_nh3: Decimal | null;
+    gj_lhv_per_t_nh3: Decimal | null;
+    /** Imported electricity and steam less exported steam, summed over the months. */
+    indirect_co2e_t: Decimal;
+    /** False when any month left an import or export out for want of a factor. */
+    indirect_complete: boolean;
+    co2e_incl_indirect_t_per_t_nh3: Decimal | null;
+  };
   uncertainty: { co2: UncertaintyFigures; net_co2: UncertaintyFigures };
   flags: Flag[];
 }
@@ -96,6 +105,7 @@ export function rollUpYear(months: YearMonthEntry[]): YearResult {
   const dests: Destination[] = ["urea", "storage", "sale", "other"];
   const byDest = Object.fromEntries(dests.map((d) => [d, sumOf(entries, (r) => r.transfers.by_destination[d].co2_t)])) as Record<Destination, Decimal>;
   const ok = nh3.gt(0);
+  const indirectT = sumOf(entries, (r) => r.intensity.indirect_co2e_t);
   return {
     year, months_included: entries.map((e) => e.month), months_missing: missing, ammonia_t: nh3, emissions,
     co2: { gross_t: emissions.co2_t, deductible_t: sumOf(entries, (r) => r.co2.deductible_t), net_t: sumOf(entries, (r) => r.co2.net_t) },
@@ -104,6 +114,9 @@ export function rollUpYear(months: YearMonthEntry[]): YearResult {
       co2e_t_per_t_nh3: ok ? emissions.co2e_t.div(nh3) : null,
       net_co2e_t_per_t_nh3: ok ? emissions.net_co2e_t.div(nh3) : null,
       gj_lhv_per_t_nh3: ok ? energy.div(nh3) : null,
+      indirect_co2e_t: indirectT,
+      indirect_complete: entries.every((e) => e.result.intensity.indirect_complete),
+      co2e_incl_indirect_t_per_t_nh3: ok ? emissions.co2e_t.plus(indirectT).div(nh3) : null,
     },
     uncertainty: {
       co2: combine(entries.map((e) => e.result.uncertainty.co2)),

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { computeEmissions, rollUpYear, type EmissionsInput } from "../../../lib/emissions/index";
-import { ammonia, d, gas, plant } from "./fixtures";
+import { ammonia, d, gas, plant, stream } from "./fixtures";
 
 const FC = { emissions: "fuel-calculation", factor_set: "ipcc-2006", gwp: "AR5" } as const;
 
@@ -48,5 +48,24 @@ describe("year roll-up: factor part correlated, meter part independent", () => {
     const y = rollUpYear([month("2024-03", "20000", "46500"), month("2024-03", "20000", "46500"), month("2023-12", "1000", "100")]);
     expect(y.months_included).toEqual(["2024-03"]);
     expect(y.flags.filter((f) => f.severity === "error").map((f) => f.code).sort()).toEqual(["month-duplicated", "month-outside-year"]);
+  });
+});
+
+describe("year roll-up: imported electricity", () => {
+  // 2 000 MWh at 0.25 t/MWh and 1 000 MWh at 0.30 t/MWh (factors of our invented grid contract):
+  // 500 + 300 = 800 t CO2 added to the direct CO2e; hand calculation.
+  function monthWithPower(m: string, mwh: string, factor: string) {
+    const input = plant({ month: m, method: FC, ammonia_t: d("40000"),
+      streams: [gas("feed", "feed-gas", "20000", "2", { withCarbon: false }), ammonia("40000"),
+        stream({ id: "power", kind: "electricity-import", unit: "MWh", quantity: d(mwh), mwh: d(mwh), factor_t_per_MWh: d(factor) })] });
+    return { month: m, input, result: computeEmissions(input) };
+  }
+  const year = rollUpYear([monthWithPower("2024-01", "2000", "0.25"), monthWithPower("2024-02", "1000", "0.30")]);
+
+  it("sums the months' indirect CO2e and adds it to the year's intensity", () => {
+    expect(year.intensity.indirect_co2e_t.toString()).toBe("800");
+    expect(year.intensity.indirect_complete).toBe(true);
+    const expected = year.emissions.co2e_t.plus(800).div(80000);
+    expect(year.intensity.co2e_incl_indirect_t_per_t_nh3!.eq(expected)).toBe(true);
   });
 });
