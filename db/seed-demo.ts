@@ -1,6 +1,7 @@
 import { and, eq } from "drizzle-orm";
 import { hashPassword } from "@/lib/auth/password";
 import { ensureDemoCertificate } from "@/lib/signing/demo-seed";
+import { seedDemoHistory } from "./seed-history";
 import type { Db } from "./client";
 import { DEMO_ORGANISATION, DEMO_USERS } from "./demo-users";
 import { recordAudit } from "./queries/audit";
@@ -15,7 +16,7 @@ export async function seedDemo(db: Db): Promise<void> {
     if (!(await findUserByEmail(db, u.email))) hashes.set(u.email, await hashPassword(u.password));
   }
 
-  await db.transaction(async (tx) => {
+  const organisationId = await db.transaction(async (tx) => {
     await tx.insert(organisations).values(DEMO_ORGANISATION).onConflictDoNothing({ target: organisations.slug });
     const [org] = await tx.select().from(organisations).where(eq(organisations.slug, DEMO_ORGANISATION.slug));
 
@@ -44,5 +45,7 @@ export async function seedDemo(db: Db): Promise<void> {
     await seedDemoSites(tx, org.id);
     // The demo signs statements end to end, so it needs a (self-signed) certificate from the start.
     await ensureDemoCertificate(tx, org.id);
+    return org.id;
   });
+  await seedDemoHistory(db, organisationId);
 }

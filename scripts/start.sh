@@ -31,7 +31,7 @@ export MAIL_FROM="${MAIL_FROM:-Synledger <no-reply@synledger.invalid>}"
 
 (cd "$ROOT" && node_modules/.bin/tsx db/migrate.ts) || die "migrations failed"
 if [ "${SEED_DEMO:-1}" = "1" ]; then
-  (cd "$ROOT" && node_modules/.bin/tsx db/seed.ts) || die "seeding the demo organisation failed"
+  (cd "$ROOT" && node --import ./scripts/allow-server-modules.mjs --import tsx db/seed.ts) || die "seeding the demo organisation failed"
 fi
 
 if pid_alive "$RUN_DIR/mail-sink.pid"; then

@@ -39,7 +39,7 @@ export MAIL_FROM="Synledger test <no-reply@synledger.invalid>"
 export NEXT_TELEMETRY_DISABLED=1
 
 node_modules/.bin/tsx db/migrate.ts || die "migrations failed"
-node_modules/.bin/tsx db/seed.ts || die "seeding failed"
+node --import ./scripts/allow-server-modules.mjs --import tsx db/seed.ts || die "seeding failed"
 
 start_detached "$TEST_RUN/mail-sink.pid" "$TEST_RUN/mail-sink.log" node_modules/.bin/tsx scripts/mail-sink.ts \
   --smtp-port "$TEST_SMTP_PORT" --http-port "$TEST_MAIL_VIEW_PORT" --dir "$TEST_RUN/mail"
