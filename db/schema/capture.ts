@@ -1,9 +1,9 @@
-import { customType, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { organisations, users } from "./organisations";
 import { sites, streams } from "./sites";
 import { months } from "./months";
+import { bytea } from "./statements";
 
-const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
 
 /** Machine access for plant systems: per site, stored hashed, scoped to writing readings. */
 export const apiTokens = pgTable(

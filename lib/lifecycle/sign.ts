@@ -5,8 +5,7 @@ import type { MonthBundle } from "@/db/queries/months";
 import { statements, type MonthRow } from "@/db/schema";
 import type { findSite } from "@/db/queries/sites";
 import { HttpError } from "@/lib/auth/errors";
-import { issueStatement, NoSigningCertificate } from "@/lib/signing/issue";
-import { appUrl } from "@/lib/mail/transport";
+import { issueStatement, NoSigningCertificate, signOffFacts } from "@/lib/signing/issue";
 import { buildMonthlyModel, statementSummary, type StreamFacts } from "@/reports/build-model";
 import { renderMonthlyStatement } from "@/reports/render";
 import { balanceNoteOf, lastOf, reopenReason, revisionFacts, type TransitionEvent } from "./history";
@@ -86,14 +85,7 @@ export async function signMonth(tx: Tx, actor: LifecycleActor, site: Site, month
               ...revisionFacts(events, earlier),
               { revision: month.revision, signedAt: ctx.signedAt, signer: actor.name, reason: reopenReason(events, month.revision) },
             ],
-            signOff: {
-              signer: actor.name,
-              role: "Signatory",
-              signedAt: ctx.signedAt,
-              certificateSubject: ctx.certificateSubject,
-              certificateFingerprint: ctx.certificateFingerprint,
-              verifyAt: `${appUrl()}/verify`,
-            },
+            signOff: signOffFacts(actor.name, ctx),
           }),
         ),
     });

@@ -8,6 +8,7 @@ import {
   insertStatement,
   type CertificateSummary,
 } from "@/db/queries/statements";
+import { appUrl } from "@/lib/mail/transport";
 import { readP12 } from "./certificate";
 import { sha256Hex } from "./hash";
 import { openPassphrase, sealPassphrase } from "./passphrase-box";
@@ -62,6 +63,18 @@ export interface SigningContext {
   signedAt: Date;
   certificateSubject: string;
   certificateFingerprint: string;
+}
+
+/** The sign-off a statement prints, the same for monthly and annual statements. */
+export function signOffFacts(signer: string, ctx: SigningContext) {
+  return {
+    signer,
+    role: "Signatory",
+    signedAt: ctx.signedAt,
+    certificateSubject: ctx.certificateSubject,
+    certificateFingerprint: ctx.certificateFingerprint,
+    verifyAt: `${appUrl()}/verify`,
+  };
 }
 
 export interface IssueInput {

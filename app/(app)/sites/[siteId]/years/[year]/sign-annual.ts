@@ -5,8 +5,7 @@ import { latestRevision, listStatements } from "@/db/queries/statements";
 import { HttpError, notFound } from "@/lib/auth/errors";
 import type { Actor } from "@/lib/auth/guard";
 import { annualReadiness, rollUpRuns, yearBenchmarks, yearTheoreticalMinimum } from "@/lib/ledger/year";
-import { appUrl } from "@/lib/mail/transport";
-import { issueStatement, NoSigningCertificate } from "@/lib/signing/issue";
+import { issueStatement, NoSigningCertificate, signOffFacts } from "@/lib/signing/issue";
 import { renderAnnualStatement } from "@/reports/render";
 import { annualSummary, buildAnnualModel } from "./annual-model";
 
@@ -72,14 +71,7 @@ export async function signAnnual(db: Db, actor: Actor, siteId: string, year: str
               preparedBy: "from the signed monthly statements of the year",
               preparedAt: lastMonthly,
               revisions: [...revisions, { revision, signedAt: ctx.signedAt, signer: actor.name, reason: revision === 1 ? "First issue" : "A month was re-signed" }],
-              signOff: {
-                signer: actor.name,
-                role: "Signatory",
-                signedAt: ctx.signedAt,
-                certificateSubject: ctx.certificateSubject,
-                certificateFingerprint: ctx.certificateFingerprint,
-                verifyAt: `${appUrl()}/verify`,
-              },
+              signOff: signOffFacts(actor.name, ctx),
             }),
           ),
       });
