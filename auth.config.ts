@@ -2,8 +2,9 @@ import type { NextAuthConfig } from "next-auth";
 
 /**
  * Edge-safe part of the Auth.js configuration, shared by the proxy and by auth.ts.
- * Sessions are JWTs that carry the user, the active organisation and its roles; server code
- * re-reads the membership from the database on every request (lib/auth/guard.ts).
+ * Sessions are JWTs that carry the user, the session row, the active organisation and its roles;
+ * server code re-reads the membership and the session row on every request (lib/auth/guard.ts),
+ * so an ended session stops working at once, whatever the cookie's expiry says.
  */
 export const authConfig = {
   pages: { signIn: "/sign-in" },
@@ -19,6 +20,7 @@ export const authConfig = {
     jwt({ token, user }) {
       if (user) {
         token.userId = user.id as string;
+        token.sessionId = user.sessionId;
         token.organisationId = user.organisationId;
         token.organisationName = user.organisationName;
         token.roles = user.roles;
@@ -27,6 +29,7 @@ export const authConfig = {
     },
     session({ session, token }) {
       session.user.id = token.userId;
+      session.user.sessionId = token.sessionId;
       session.user.organisationId = token.organisationId;
       session.user.organisationName = token.organisationName;
       session.user.roles = token.roles;

@@ -15,6 +15,18 @@ const config = [
       "react-hooks/incompatible-library": "off",
     },
   },
+  {
+    // No value from a request, a file or the database is ever made into a pattern (catastrophic
+    // backtracking freezes the server). Tests may build patterns from their own constants.
+    ignores: ["tests/**", "bench/**"],
+    rules: {
+      "no-restricted-syntax": [
+        "error",
+        { selector: "NewExpression[callee.name='RegExp']", message: "Do not build a RegExp at run time: compare strings, or use a fixed pattern literal." },
+        { selector: "CallExpression[callee.name='RegExp']", message: "Do not build a RegExp at run time: compare strings, or use a fixed pattern literal." },
+      ],
+    },
+  },
   { ignores: [".next/**", ".next-*/**", "node_modules/**", ".data/**", ".run/**", "test-results/**", "next-env.d.ts", "db/migrations/**"] },
 ];
 

@@ -1,8 +1,7 @@
 import type { NextConfig } from "next";
 
-/** Security headers on every response; the app loads nothing from other origins. */
-const securityHeaders = [
-  {
+/** The app's pages load nothing from other origins. */
+const APP_CSP = {
     key: "Content-Security-Policy",
     value: [
       "default-src 'self'",
@@ -16,7 +15,16 @@ const securityHeaders = [
       "form-action 'self'",
       "object-src 'none'",
     ].join("; "),
-  },
+};
+
+/**
+ * Files people uploaded (attachments) are served under a policy that lets them run nothing and
+ * load nothing, whatever they contain; the route sets the same, and this keeps the app's policy
+ * from replacing it.
+ */
+const FILE_CSP = { key: "Content-Security-Policy", value: "default-src 'none'; frame-ancestors 'none'; sandbox" };
+
+const commonHeaders = [
   { key: "X-Frame-Options", value: "DENY" },
   { key: "X-Content-Type-Options", value: "nosniff" },
   { key: "Referrer-Policy", value: "strict-origin-when-cross-origin" },
@@ -29,7 +37,10 @@ const nextConfig: NextConfig = {
   distDir: process.env.NEXT_DIST_DIR ?? ".next",
   typedRoutes: false,
   async headers() {
-    return [{ source: "/:path*", headers: securityHeaders }];
+    return [
+      { source: "/((?!api/v1/attachments/).*)", headers: [APP_CSP, ...commonHeaders] },
+      { source: "/api/v1/attachments/:path*", headers: [FILE_CSP, ...commonHeaders] },
+    ];
   },
 };
 

@@ -25,6 +25,7 @@ export default defineConfig({
           name: "integration",
           include: ["tests/integration/**/*.test.ts"],
           environment: "node",
+          setupFiles: ["tests/support/integration-setup.ts"],
           // One database shared by all files: run files one after another.
           fileParallelism: false,
           testTimeout: 30_000,

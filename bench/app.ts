@@ -1,6 +1,6 @@
 /**
  * The production app for the load figures: built into .next-bench (again only when a source file
- * is newer than that build), served by `next start` on a free loopback port against the bench
+ * is newer than that build), served by server.ts (Next behind its Node HTTP server) on a free loopback port against the bench
  * database, and signed in to through Auth.js's credentials endpoint like a browser would.
  */
 import { spawn, spawnSync } from "node:child_process";
@@ -54,13 +54,15 @@ export async function startApp(databaseUrl: string): Promise<RunningApp> {
   const port = await freePort();
   const base = `http://127.0.0.1:${port}`;
   const log = openSync(join(ROOT, ".run", "bench-app.log"), "w");
-  const child = spawn(process.execPath, ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(port)], {
+  const child = spawn(process.execPath, ["--import", "tsx", "server.ts"], {
     cwd: ROOT,
     detached: true, // its own process group, so stop() ends next and its workers together
     stdio: ["ignore", log, log],
     env: {
       ...process.env,
       NEXT_DIST_DIR: DIST,
+      PORT: String(port),
+      HOST: "127.0.0.1",
       NODE_ENV: "production",
       NEXT_TELEMETRY_DISABLED: "1",
       DATABASE_URL: databaseUrl,

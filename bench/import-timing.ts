@@ -32,7 +32,7 @@ try {
     mapping: importMappingSchema.parse({ name: "bench", layout: "long", delimiter: ",", dateColumn: "Date", dateFormat: "YYYY-MM-DD", streamColumn: "Tag", quantityColumn: "Total", unitColumn: "Unit" }),
     confirmReplace: true,
   };
-  const actor = { userId: env("BENCH_USER_ID"), name: "Bench engineer", email: "bench@bench.example", organisationId: env("BENCH_ORG_ID"), organisationName: "Bench", roles: [...ROLES] };
+  const actor = { userId: env("BENCH_USER_ID"), sessionId: "bench (no session)", name: "Bench engineer", email: "bench@bench.example", organisationId: env("BENCH_ORG_ID"), organisationName: "Bench", roles: [...ROLES] };
   const noop = async () => undefined;
   const t0 = performance.now();
   const checked = await analyseImport(db, actor.organisationId, siteId, request, noop);

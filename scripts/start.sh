@@ -48,7 +48,8 @@ if pid_alive "$RUN_DIR/app.pid"; then
   exit 0
 fi
 build_if_stale
-PORT="$PORT" NODE_ENV=production start_detached "$RUN_DIR/app.pid" "$RUN_DIR/app.log" \
-  node node_modules/next/dist/bin/next start -H "${HOST:-0.0.0.0}" -p "$PORT"
+# server.ts wraps Next so forwarding headers count only from the proxies TRUSTED_PROXY names.
+PORT="$PORT" HOST="${HOST:-0.0.0.0}" NODE_ENV=production start_detached "$RUN_DIR/app.pid" "$RUN_DIR/app.log" \
+  node --import tsx server.ts
 wait_for_http "http://127.0.0.1:$PORT/sign-in" 150 || { tail -n 30 "$RUN_DIR/app.log" >&2; die "the app did not answer on port $PORT"; }
 log "Synledger is running at $APP_URL  (demo accounts: README.md; 'npm run stop' stops everything)"

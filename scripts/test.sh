@@ -71,8 +71,9 @@ log "── next build + browser tests"
 export NEXT_DIST_DIR=".next-test"
 if (NODE_ENV=production node node_modules/next/dist/bin/next build >"$RESULTS/build.log" 2>&1); then
   passed=$((passed + 1))
-  NODE_ENV=production start_detached "$TEST_RUN/app.pid" "$RESULTS/app.log" \
-    node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$TEST_PORT"
+  # The browser tests play a proxy from 127.0.0.2 (tests/e2e/from-proxy.ts); 127.0.0.1 is an ordinary client.
+  PORT="$TEST_PORT" HOST=127.0.0.1 TRUSTED_PROXY=127.0.0.2 NODE_ENV=production start_detached "$TEST_RUN/app.pid" "$RESULTS/app.log" \
+    node --import tsx server.ts
   if wait_for_http "$APP_URL/sign-in" 150; then
     E2E_BASE_URL="$APP_URL" node_modules/.bin/tsx tests/e2e/run.ts 2>&1 | tee "$RESULTS/e2e.log"
     line=$(grep -E '^e2e: [0-9]+ passed, [0-9]+ failed' "$RESULTS/e2e.log" | tail -n 1 || true)

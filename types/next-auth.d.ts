@@ -3,6 +3,8 @@ import type { Role } from "@/lib/auth/roles";
 
 declare module "next-auth" {
   interface User {
+    /** The user_sessions row this sign-in opened. */
+    sessionId: string;
     organisationId: string;
     organisationName: string;
     roles: Role[];
@@ -10,6 +12,7 @@ declare module "next-auth" {
   interface Session {
     user: {
       id: string;
+      sessionId: string;
       organisationId: string;
       organisationName: string;
       roles: Role[];
@@ -20,6 +23,7 @@ declare module "next-auth" {
 declare module "@auth/core/jwt" {
   interface JWT {
     userId: string;
+    sessionId: string;
     organisationId: string;
     organisationName: string;
     roles: Role[];

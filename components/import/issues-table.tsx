@@ -2,14 +2,11 @@
 
 import { useState } from "react";
 import { buttonSecondary } from "@/components/ui/styles";
+import { csvDocument } from "@/lib/csv";
 import { formatCount } from "@/lib/import/limits";
 import type { ImportIssue } from "@/lib/import/types";
 
 const PAGE = 50;
-
-function csvCell(s: string): string {
-  return /[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-}
 
 /** Every problem, a hundred at a time, and all of them as a CSV to work through beside the file. */
 export function IssuesTable({ issues, fileName }: { issues: ImportIssue[]; fileName: string }) {
@@ -17,7 +14,7 @@ export function IssuesTable({ issues, fileName }: { issues: ImportIssue[]; fileN
   const pages = Math.ceil(issues.length / PAGE);
   const shown = issues.slice(page * PAGE, (page + 1) * PAGE);
   const download = () => {
-    const text = ["row,column,problem", ...issues.map((i) => [String(i.row), i.column ?? "", i.reason].map(csvCell).join(","))].join("\r\n");
+    const text = csvDocument([], ["row", "column", "problem"], issues.map((i) => [i.row, i.column ?? "", i.reason]));
     const url = URL.createObjectURL(new Blob([text], { type: "text/csv;charset=utf-8" }));
     const a = Object.assign(document.createElement("a"), { href: url, download: `${fileName.replace(/\.[^.]*$/, "")}-problems.csv` });
     a.click();

@@ -36,7 +36,9 @@ export function AppHeader({ actor, sites, defaultMonth }: { actor: Actor; sites:
         </div>
         <div className="no-print flex items-center gap-3 text-sm">
           <div className="text-right leading-tight">
-            <div className="font-medium">{actor.name}</div>
+            <Link href="/account" className="font-medium text-ink no-underline hover:underline" title="Your account: password and sessions">
+              {actor.name}
+            </Link>
             <div className="text-xs text-ink-soft">
               <span className="sr-only">Roles: </span>
               {actor.roles.map((r) => ROLE_LABELS[r]).join(" · ")}

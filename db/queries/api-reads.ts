@@ -54,13 +54,3 @@ export async function listMonthsOfSite(db: Db | Tx, siteId: string, year: string
     .where(and(eq(months.siteId, siteId), like(months.period, `${year}-%`)))
     .orderBy(asc(months.period));
 }
-
-/** The version an editor must name to save the month: 0 while nobody has started it. */
-export async function currentMonthVersion(db: Db | Tx, siteId: string, period: string): Promise<number> {
-  const [row] = await db
-    .select({ version: months.version })
-    .from(months)
-    .where(and(eq(months.siteId, siteId), eq(months.period, period)))
-    .limit(1);
-  return row?.version ?? 0;
-}

@@ -23,7 +23,7 @@ export async function listMembers(db: Db | Tx, organisationId: string) {
 /** One membership, locked for the rest of the transaction so concurrent role edits queue up. */
 export async function lockMembership(tx: Tx, organisationId: string, userId: string) {
   const [row] = await tx
-    .select({ id: memberships.id, roles: memberships.roles, name: users.name, email: users.email })
+    .select({ id: memberships.id, roles: memberships.roles, name: users.name, email: users.email, disabled: users.disabled })
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
     .where(and(eq(memberships.organisationId, organisationId), eq(memberships.userId, userId)))
@@ -79,4 +79,18 @@ export async function isMemberByEmail(db: Db | Tx, organisationId: string, email
     .where(and(eq(memberships.organisationId, organisationId), sql`lower(${users.email}) = ${email.trim().toLowerCase()}`))
     .limit(1);
   return rows.length > 0;
+}
+
+/** How many organisations a user belongs to: an administrator may disable an account only if it is theirs alone. */
+export async function membershipCount(db: Db | Tx, userId: string): Promise<number> {
+  const [row] = await db.select({ n: sql<number>`count(*)`.mapWith(Number) }).from(memberships).where(eq(memberships.userId, userId));
+  return row.n;
+}
+
+export async function setUserDisabled(tx: Tx, userId: string, disabled: boolean) {
+  await tx.update(users).set({ disabled }).where(eq(users.id, userId));
+}
+
+export async function deleteMembership(tx: Tx, membershipId: string) {
+  await tx.delete(memberships).where(eq(memberships.id, membershipId));
 }

@@ -1,4 +1,5 @@
-import { and, count, eq, gt, sql } from "drizzle-orm";
+import { and, eq, gt, or, sql } from "drizzle-orm";
+import { SIGN_IN_WINDOW_MINUTES, type FailureCounts } from "@/lib/auth/sign-in-policy";
 import type { Db, Tx } from "../client";
 import { memberships, organisations, signInAttempts, users } from "../schema";
 
@@ -25,32 +26,22 @@ export async function membershipsOf(db: Db | Tx, userId: string) {
     .orderBy(memberships.createdAt);
 }
 
-export async function membership(db: Db | Tx, userId: string, organisationId: string) {
-  const [row] = await db
-    .select({ roles: memberships.roles, organisationName: organisations.name })
-    .from(memberships)
-    .innerJoin(organisations, eq(organisations.id, memberships.organisationId))
-    .where(and(eq(memberships.userId, userId), eq(memberships.organisationId, organisationId)))
-    .limit(1);
-  return row ?? null;
-}
-
-export const SIGN_IN_WINDOW_MINUTES = 15;
-export const MAX_FAILURES_PER_EMAIL = 5;
-export const MAX_FAILURES_PER_IP = 30;
-
 export async function recordSignInAttempt(db: Db, email: string, ip: string, succeeded: boolean) {
   await db.insert(signInAttempts).values({ email: email.trim().toLowerCase(), ip, succeeded });
 }
 
-/** True when the e-mail or the address has failed too often within the window. */
-export async function signInBlocked(db: Db, email: string, ip: string): Promise<boolean> {
+/** Failed attempts within the window: this account from this address, this address, this account. */
+export async function signInFailureCounts(db: Db, email: string, ip: string): Promise<FailureCounts & { addresses: string[] }> {
   const since = new Date(Date.now() - SIGN_IN_WINDOW_MINUTES * 60_000);
-  const failed = (col: typeof signInAttempts.email | typeof signInAttempts.ip, value: string) =>
-    db
-      .select({ n: count() })
-      .from(signInAttempts)
-      .where(and(eq(col, value), eq(signInAttempts.succeeded, false), gt(signInAttempts.at, since)));
-  const [[byEmail], [byIp]] = await Promise.all([failed(signInAttempts.email, email.trim().toLowerCase()), failed(signInAttempts.ip, ip)]);
-  return byEmail.n >= MAX_FAILURES_PER_EMAIL || byIp.n >= MAX_FAILURES_PER_IP;
+  const e = email.trim().toLowerCase();
+  const [row] = await db
+    .select({
+      accountAndAddress: sql<number>`count(*) filter (where ${signInAttempts.email} = ${e} and ${signInAttempts.ip} = ${ip})`.mapWith(Number),
+      address: sql<number>`count(*) filter (where ${signInAttempts.ip} = ${ip})`.mapWith(Number),
+      account: sql<number>`count(*) filter (where ${signInAttempts.email} = ${e})`.mapWith(Number),
+      addresses: sql<string[]>`coalesce(array_agg(distinct ${signInAttempts.ip}) filter (where ${signInAttempts.email} = ${e}), '{}')`,
+    })
+    .from(signInAttempts)
+    .where(and(eq(signInAttempts.succeeded, false), gt(signInAttempts.at, since), or(eq(signInAttempts.email, e), eq(signInAttempts.ip, ip))));
+  return { accountAndAddress: row.accountAndAddress, address: row.address, account: row.account, addresses: row.addresses ?? [] };
 }

@@ -71,3 +71,27 @@ export const signInAttempts = pgTable(
   },
   (t) => [index("sign_in_attempts_email_at_idx").on(t.email, t.at), index("sign_in_attempts_ip_at_idx").on(t.ip, t.at)],
 );
+
+/**
+ * One row per sign-in. The session cookie (a JWT) carries the row's id; the guard refuses a
+ * cookie whose row is ended, so signing out, "sign out everywhere", a password change, a
+ * disabled account or a last role taken away end the session at the next request, not when the
+ * cookie expires. `ended_reason` says which.
+ */
+export const userSessions = pgTable(
+  "user_sessions",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    lastSeenAt: timestamp("last_seen_at", { withTimezone: true }).notNull().defaultNow(),
+    /** The client address and browser at sign-in, so the holder can recognise the session. */
+    address: text("address").notNull(),
+    userAgent: text("user_agent").notNull().default(""),
+    endedAt: timestamp("ended_at", { withTimezone: true }),
+    endedReason: text("ended_reason"),
+  },
+  (t) => [index("user_sessions_user_idx").on(t.userId, t.endedAt)],
+);

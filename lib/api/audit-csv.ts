@@ -1,3 +1,4 @@
+import { csvLine, type CsvValue } from "@/lib/csv";
 import type { AuditTrailFilter, AuditTrailRow } from "@/db/queries/audit-trail";
 import type { AuditFilterInput } from "./audit-filter";
 
@@ -7,19 +8,8 @@ export function trailFilter(f: AuditFilterInput): AuditTrailFilter {
   return { siteId: f.site, entity: f.entity, channel: f.channel, actor: f.actor, from: f.from ? new Date(`${f.from}T00:00:00Z`) : undefined, before };
 }
 
-/**
- * One CSV cell (RFC 4180 quoting). A text cell that a spreadsheet would run as a formula
- * (= + - @ at the start) gets a leading apostrophe: labels and notes are typed by people.
- */
-export function csvCell(value: unknown): string {
-  if (value === null || value === undefined) return "";
-  let s = typeof value === "string" ? value : value instanceof Date ? value.toISOString() : typeof value === "object" ? JSON.stringify(value) : String(value);
-  if (typeof value === "string" && /^[=+\-@\t\r]/.test(s)) s = `'${s}`;
-  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-}
-
 export const AUDIT_CSV_HEADER = ["id", "at_utc", "site", "actor", "channel", "action", "entity", "entity_id", "reason", "before_json", "after_json"];
 
 export function auditCsvLine(r: AuditTrailRow): string {
-  return [r.id, r.at, r.siteName ?? r.siteId, r.actorLabel, r.channel, r.action, r.entity, r.entityId, r.reason, r.before, r.after].map(csvCell).join(",");
+  return csvLine([r.id, r.at, r.siteName ?? r.siteId, r.actorLabel, r.channel, r.action, r.entity, r.entityId, r.reason, r.before as CsvValue, r.after as CsvValue]);
 }

@@ -1,10 +1,11 @@
 import "server-only";
 import type { z } from "zod";
+import { LIMITS } from "@/lib/balance/limits";
 import { JsonNumber, JsonSyntaxError, readJson, type JsonValue } from "@/lib/balance/json-reader";
 import { HttpError } from "@/lib/auth/errors";
 
-/** Largest body any v1 route reads: a plant-month file is a few kilobytes; a megabyte is generous. */
-export const MAX_BODY_BYTES = 1024 * 1024;
+/** Largest JSON body any v1 route reads: the plant-month bound (a real file is a few kilobytes). */
+export const MAX_BODY_BYTES = LIMITS.fileBytes;
 
 const tooLarge = (max: number) =>
   new HttpError(413, "payload_too_large", `The request body is larger than ${max / 1024 / 1024} MiB (${max} bytes); nothing was read or saved. Send one month per request.`);

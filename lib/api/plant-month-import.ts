@@ -1,5 +1,5 @@
 import "server-only";
-import { HttpError, type IssueDetail } from "@/lib/auth/errors";
+import { HttpError, quoted, type IssueDetail } from "@/lib/auth/errors";
 import { parsePlantMonthText } from "@/lib/balance/schema";
 import type { MonthFiguresInput } from "@/lib/validations/month";
 
@@ -20,7 +20,14 @@ export interface ImportPlan {
  * readings and analyses. What describes the site (kinds, meters, uncertainties, factors) and the
  * method belong to site set-up and the officer, so the file is checked against them, not obeyed.
  */
-export function planImport(text: string, period: string, siteName: string, streams: SiteStream[], expectedVersion: number): ImportPlan {
+/** A file names its site by name (as exported) or by code; case and surrounding spaces do not matter. */
+function sameSite(named: string, site: { name: string; code: string }): boolean {
+  const n = named.trim().toLowerCase();
+  return n === site.name.trim().toLowerCase() || n === site.code.trim().toLowerCase();
+}
+
+export function planImport(text: string, period: string, site: { name: string; code: string }, streams: SiteStream[], expectedVersion: number): ImportPlan {
+  const siteName = site.name;
   const parsed = parsePlantMonthText(text);
   if (!parsed.ok) {
     throw new HttpError(400, "invalid_plant_month", "The file is not a valid plant-month document; nothing was saved.", parsed.issues.map((i) => ({ path: i.path, message: i.reason })));
@@ -28,6 +35,7 @@ export function planImport(text: string, period: string, siteName: string, strea
   const doc = parsed.doc;
   const byKey = new Map(streams.map((s) => [s.key, s]));
   const issues: IssueDetail[] = [];
+  if (!sameSite(doc.site, site)) issues.push({ path: "site", message: `the file is for ${quoted(doc.site)}, but it was sent to ${site.name} (code ${site.code}); import it into its own site, or correct "site" in the file` });
   if (doc.month !== period) issues.push({ path: "month", message: `the file is for ${doc.month}, but it was sent to ${period}` });
   doc.streams.forEach((s, i) => {
     const known = byKey.get(s.id);

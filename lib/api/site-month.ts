@@ -2,13 +2,14 @@ import "server-only";
 import { getDb } from "@/db";
 import { loadMonthBundle, type MonthBundle } from "@/db/queries/months";
 import { findSite } from "@/db/queries/sites";
-import { HttpError, notFound } from "@/lib/auth/errors";
-import { PERIOD } from "@/lib/validations/month";
+import { HttpError, notFound, quoted } from "@/lib/auth/errors";
+import { FIRST_YEAR, LAST_YEAR, isMonthKey } from "@/lib/period";
 import type { ApiCaller } from "./actor";
 
 /** The `{month}` path segment: a calendar month written YYYY-MM. */
 export function periodParam(month: string): string {
-  if (!PERIOD.test(month)) throw new HttpError(400, "invalid_input", `"${month}" is not a month; write it as YYYY-MM (e.g. 2026-03).`, [{ path: "month", message: "must be YYYY-MM with a month 01..12" }]);
+  if (!isMonthKey(month))
+    throw new HttpError(400, "invalid_input", `${quoted(month)} is not a month; write it as YYYY-MM (e.g. 2026-03).`, [{ path: "month", message: `must be YYYY-MM with a year ${FIRST_YEAR}..${LAST_YEAR} and a month 01..12` }]);
   return month;
 }
 

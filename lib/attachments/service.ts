@@ -6,6 +6,7 @@ import { findAttachment, insertAttachment, listMonthAttachments, removeAttachmen
 import { recordAudit } from "@/db/queries/audit";
 import { lockMonth } from "@/db/queries/months";
 import { findMonth, findSite } from "@/db/queries/sites";
+import { archivedSiteRefusal } from "@/lib/ledger/save-month";
 import { months, streams } from "@/db/schema";
 import { HttpError, forbidden, notFound } from "@/lib/auth/errors";
 import { can, type Actor } from "@/lib/auth/guard";
@@ -65,6 +66,7 @@ export async function uploadAttachment(db: Db, actor: Actor, siteId: string, per
   if (!canUploadAttachments(actor)) throw forbidden("attach files to a month");
   const site = await findSite(db, actor.organisationId, siteId);
   if (!site) throw notFound("The site");
+  if (site.archivedAt) throw archivedSiteRefusal(site.name);
   if (!(ATTACHMENT_CATEGORIES as readonly string[]).includes(input.category)) {
     throw new HttpError(400, "invalid_input", "Choose what the file is.", [{ path: "category", message: `must be one of ${ATTACHMENT_CATEGORIES.join(", ")}` }]);
   }

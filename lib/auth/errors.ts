@@ -28,3 +28,13 @@ export function zodIssues(issues: readonly { path: readonly PropertyKey[]; messa
     message: i.message,
   }));
 }
+
+/**
+ * A caller's value quoted inside a message: JSON-escaped (so control characters and lone
+ * surrogates cannot reach a log or a body raw) and cut to 40 characters, so a 1 000-character
+ * path segment does not come back whole.
+ */
+export function quoted(value: string, max = 40): string {
+  const cut = value.length > max ? `${value.slice(0, max)}…` : value;
+  return JSON.stringify(cut.toWellFormed());
+}

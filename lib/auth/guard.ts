@@ -1,10 +1,11 @@
 import "server-only";
 import { redirect } from "next/navigation";
+import { cache } from "react";
 import { NextResponse } from "next/server";
 import { ZodError } from "zod";
 import { auth } from "@/auth";
 import { getDb } from "@/db";
-import { membership } from "@/db/queries/users";
+import { liveMembership, touchSession } from "@/db/queries/sessions";
 import { HttpError, forbidden, unauthorized, zodIssues } from "./errors";
 import { isRole, rolesGrant, type Permission, type Role } from "./roles";
 import { assertSameOrigin } from "./same-origin";
@@ -13,6 +14,8 @@ import { storageRefusal } from "./storage-refusal";
 /** Who is acting, with the roles held in the active organisation as the database has them now. */
 export interface Actor {
   userId: string;
+  /** The user_sessions row of this sign-in. */
+  sessionId: string;
   name: string;
   email: string;
   organisationId: string;
@@ -21,26 +24,31 @@ export interface Actor {
 }
 
 /**
- * The signed-in person, or null. The membership is read again from the database so a role
- * taken away, or a removed member, loses access at once rather than when the session expires.
+ * The signed-in person, or null. The membership, the account and the session row are read again
+ * from the database on every request, so a role taken away, a disabled account or a session
+ * ended (sign-out, "sign out everywhere", a password change) lose access at once rather than
+ * when the cookie expires. Cached per request: the layout and the page ask once between them.
  */
-export async function currentActor(): Promise<Actor | null> {
+export const currentActor = cache(async (): Promise<Actor | null> => {
   const session = await auth();
   const u = session?.user;
-  if (!u?.id || !u.organisationId) return null;
-  const m = await membership(getDb(), u.id, u.organisationId);
+  if (!u?.id || !u.organisationId || !u.sessionId) return null;
+  const db = getDb();
+  const m = await liveMembership(db, u.id, u.organisationId, u.sessionId);
   if (!m) return null;
   const roles = m.roles.filter(isRole);
   if (roles.length === 0) return null;
+  await touchSession(db, u.sessionId, m.lastSeenAt);
   return {
     userId: u.id,
+    sessionId: u.sessionId,
     name: u.name ?? u.email ?? "",
     email: u.email ?? "",
     organisationId: u.organisationId,
     organisationName: m.organisationName,
     roles,
   };
-}
+});
 
 export function can(actor: Pick<Actor, "roles">, permission: Permission): boolean {
   return rolesGrant(actor.roles, permission);

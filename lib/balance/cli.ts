@@ -2,12 +2,13 @@
 //      npm run balance -- --year FILE1.json FILE2.json … [--json]
 // Invalid input: exit 2, nothing on stdout, the file, the JSON path and the reason on stderr.
 // Year mode reads every file before printing anything, so one bad month never yields a partial total.
-import { readFileSync } from "node:fs";
+import { readFileSync, statSync } from "node:fs";
 import { CalculationInputError, calculate } from "./calculate";
 import { Dec } from "./decimal";
 import { formatReport } from "./report";
 import { formatYearReport } from "./report-year";
 import { toResultDocument } from "./result";
+import { LIMITS, tooLargeReason } from "./limits";
 import { describeIssues, parsePlantMonthText } from "./schema";
 import { type LoadedMonth, rollUp, toYearDocument, yearInputProblem } from "./year";
 
@@ -90,7 +91,14 @@ function runYear(args: CliArgs, read: Read): CliOutcome {
 }
 
 /** The whole CLI as a function (tests call it directly; main() only does the I/O). */
-export function runCli(argv: string[], read: Read = (p) => readFileSync(p, "utf8")): CliOutcome {
+/** Refuses a file over the plant-month bound before reading a byte of it. */
+export function readBounded(path: string): string {
+  const size = statSync(path).size;
+  if (size > LIMITS.fileBytes) throw new Error(tooLargeReason(size));
+  return readFileSync(path, "utf8");
+}
+
+export function runCli(argv: string[], read: Read = readBounded): CliOutcome {
   let args: CliArgs;
   try {
     args = parseArgs(argv);

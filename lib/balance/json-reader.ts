@@ -46,12 +46,16 @@ export function readJson(text: string): JsonValue {
   const describe = () => (i >= text.length ? "end of input" : `'${text[i]}'`);
 
   const readString = (): string => {
+    const start = i;
     i++; // opening quote
     let out = "";
     while (true) {
       if (i >= text.length) fail("unterminated string");
       const ch = text[i];
       if (ch === '"') {
+        // JSON allows "\ud800" alone, but it is no character: it cannot be stored (jsonb refuses
+        // it), printed or signed, so it is refused here with its place (RFC 7493, I-JSON, 2.1).
+        if (!out.isWellFormed()) fail("a \\u escape leaves a lone UTF-16 surrogate (not a Unicode character)", start);
         i++;
         return out;
       }
@@ -98,7 +102,10 @@ export function readJson(text: string): JsonValue {
       while (true) {
         skip();
         if (text[i] !== '"') fail(`expected a property name, found ${describe()}`);
+        const keyAt = i;
         const key = readString();
+        // The last of two equal keys would silently win; in a record of account that hides a figure (RFC 8259, 4).
+        if (Object.prototype.hasOwnProperty.call(obj, key)) fail(`duplicate property name ${JSON.stringify(key)}`, keyAt);
         skip();
         if (text[i] !== ":") fail(`expected ':' after property name, found ${describe()}`);
         i++;

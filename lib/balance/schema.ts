@@ -6,12 +6,13 @@ import { COMPONENTS } from "./components";
 import { Dec, HUNDRED, sum } from "./decimal";
 import { SUM_TOLERANCE_PCT } from "./gas-properties";
 import { JsonNumber, JsonSyntaxError, readJson } from "./json-reader";
+import { LIMITS, tooLargeReason, utf8Length } from "./limits";
 import { DESTINATIONS, EMISSION_METHODS, FATES, GWP_SETS, STREAM_KINDS, type StreamKind } from "./types";
 import { UNITS, UNIT_DEFS, type Unit } from "./units";
 
 export const PLANT_MONTH_FORMAT = "synledger.plant-month/1";
 const DECIMAL_TEXT = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
-const MAX_DECIMAL_CHARS = 100;
+const MAX_DECIMAL_CHARS = LIMITS.numberChars;
 const MAX_DECIMAL_EXPONENT = 30;
 
 /** A decimal field: JSON string, JsonNumber (literal digits) or, from already-parsed JSON, a JS number. */
@@ -59,12 +60,15 @@ const componentsSchema = z.strictObject(
   { error: (iss) => (iss.code === "unrecognized_keys" ? `unknown component ${iss.keys.join(", ")}` : "must be an object") },
 );
 
-const analysisSchema = z.strictObject({ components: componentsSchema, note: z.string().optional() });
+const note = () => z.string().max(LIMITS.noteChars, `is longer than ${LIMITS.noteChars} characters`).optional();
+const name = (min = "must not be empty") => z.string().min(1, min).max(LIMITS.nameChars, `is longer than ${LIMITS.nameChars} characters`);
+
+const analysisSchema = z.strictObject({ components: componentsSchema, note: note() });
 
 const streamSchema = z.strictObject({
-  id: z.string().min(1, "must not be empty"),
+  id: name(),
   kind: enumOf(STREAM_KINDS, "stream kind"),
-  analysis: z.string().optional(),
+  analysis: name().optional(),
   fate: enumOf(FATES, "fate").optional(),
   destination: enumOf(DESTINATIONS, "destination").optional(),
   quantity: decimal("quantity"),
@@ -73,8 +77,8 @@ const streamSchema = z.strictObject({
   uncertainty_pct: decimal("value").refine((d) => d.lte(HUNDRED), "uncertainty must be at most 100 (%)").optional(),
   factor_t_per_MWh: decimal("value").optional(),
   factor_t_per_GJ: decimal("value").optional(),
-  meter: z.string().optional(),
-  note: z.string().optional(),
+  meter: name().optional(),
+  note: note(),
 });
 
 /** Which units each stream kind may be written in (an energy unit on air or a MWh gas stream is an error). */
@@ -97,16 +101,19 @@ export const UNITS_BY_KIND: Record<StreamKind, readonly Unit[]> = {
 export const plantMonthSchema = z
   .strictObject({
     format: z.literal(PLANT_MONTH_FORMAT, { error: `must be "${PLANT_MONTH_FORMAT}"` }),
-    site: z.string().min(1, "must not be empty"),
+    site: name(),
     month: z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, "must be a month YYYY-MM (01..12)"),
-    analyses: z.record(z.string(), analysisSchema).default({}),
-    streams: z.array(streamSchema),
+    analyses: z
+      .record(name(), analysisSchema)
+      .refine((a) => Object.keys(a).length <= LIMITS.analyses, `holds more than ${LIMITS.analyses} analyses`)
+      .default({}),
+    streams: z.array(streamSchema).max(LIMITS.streams, `holds more than ${LIMITS.streams} streams`),
     method: z.strictObject({
       emissions: enumOf(EMISSION_METHODS, "emissions method"),
-      factor_set: z.string().min(1, "must not be empty"),
+      factor_set: name(),
       gwp: enumOf(GWP_SETS, "GWP set"),
     }),
-    note: z.string().optional(),
+    note: note(),
   })
   .superRefine((doc, ctx) => {
     for (const [id, a] of Object.entries(doc.analyses)) {
@@ -158,6 +165,9 @@ export function parsePlantMonth(value: unknown): ParseResult {
 
 /** Reads the document from JSON text, keeping number literals exact. */
 export function parsePlantMonthText(text: string): ParseResult {
+  // Measured before parsing: the parser and the engine are what a huge document would cost.
+  const bytes = utf8Length(text);
+  if (bytes > LIMITS.fileBytes) return { ok: false, issues: [{ path: "", reason: tooLargeReason(bytes) }] };
   try {
     return parsePlantMonth(readJson(text));
   } catch (e) {

@@ -21,6 +21,23 @@ function escape(s: string): string {
   return s.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
 }
 
+/**
+ * The patterns for every declared format, built once from the fixed separator lists above: a
+ * mapping only chooses among them, so nothing from a file or a request becomes a pattern.
+ */
+const PATTERNS = new Map(
+  DECIMAL_SEPARATORS.flatMap((d) =>
+    THOUSANDS_SEPARATORS.map((t) => {
+      const dec = escape(d);
+      // eslint-disable-next-line no-restricted-syntax -- built from the constant lists above, never from input
+      const plain = new RegExp(`^\\d+(?:${dec}\\d+)?$`);
+      // eslint-disable-next-line no-restricted-syntax -- built from the constant lists above, never from input
+      const grouped = t === "none" ? null : new RegExp(`^\\d{1,3}(?:${escape(t)}\\d{3})+(?:${dec}\\d+)?$`);
+      return [`${d}|${t}`, { plain, grouped }] as const;
+    }),
+  ),
+);
+
 /** `what` names the value in messages ("quantity", "mol %"). */
 export function parseNumber(text: string, fmt: NumberFormat, what = "value"): NumberResult {
   // Non-breaking and narrow spaces are what spreadsheets write as a space separator.
@@ -30,9 +47,9 @@ export function parseNumber(text: string, fmt: NumberFormat, what = "value"): Nu
   if (/^-\s*\d/.test(body) || /^\(\d[\d.,' ]*\)$/.test(body)) {
     return { ok: false, reason: `"${t}" is negative; a ${what} cannot be below zero` };
   }
-  const dec = escape(fmt.decimal);
-  const plain = new RegExp(`^\\d+(?:${dec}\\d+)?$`);
-  const grouped = fmt.thousands === "none" ? null : new RegExp(`^\\d{1,3}(?:${escape(fmt.thousands)}\\d{3})+(?:${dec}\\d+)?$`);
+  const patterns = PATTERNS.get(`${fmt.decimal}|${fmt.thousands}`);
+  if (!patterns) return { ok: false, reason: "the number format of the mapping is not one Synledger knows" };
+  const { plain, grouped } = patterns;
   if (plain.test(body) || grouped?.test(body)) {
     const noGroups = fmt.thousands === "none" ? body : body.split(fmt.thousands).join("");
     const normal = fmt.decimal === "," ? noGroups.replace(",", ".") : noGroups;

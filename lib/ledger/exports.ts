@@ -4,7 +4,9 @@
  * carries (lib/balance num()), written as is: no float conversion, no rounding, so a CSV and the
  * series, the screen and the signed statement all come from the same text.
  */
-import { HttpError } from "@/lib/auth/errors";
+import { HttpError, quoted } from "@/lib/auth/errors";
+import { csvDocument, type CsvValue } from "@/lib/csv";
+import { FIRST_YEAR, LAST_YEAR, isYearKey } from "@/lib/period";
 import { num } from "@/lib/balance/decimal";
 import { toResultDocument } from "@/lib/balance/result";
 import type { YearSeries } from "./series";
@@ -14,29 +16,12 @@ export const YEAR_DOCUMENT_FORMAT = "synledger.plant-month-year/1";
 
 /** The `{year}` path segment: four digits within the years the ledger accepts. */
 export function yearParam(year: string): string {
-  if (!/^\d{4}$/.test(year) || Number(year) < 2000 || Number(year) > 2100)
-    throw new HttpError(400, "invalid_input", `"${year}" is not a year; write it as YYYY (e.g. 2026).`, [{ path: "year", message: "must be four digits, 2000..2100" }]);
+  if (!isYearKey(year))
+    throw new HttpError(400, "invalid_input", `${quoted(year)} is not a year; write it as YYYY (e.g. 2026).`, [{ path: "year", message: `must be four digits, ${FIRST_YEAR}..${LAST_YEAR}` }]);
   return year;
 }
 
-type Cell = string | number | null | undefined;
-const NUMERIC = /^-?\d+(\.\d+)?$/;
-
-/**
- * One CSV field. Text that a spreadsheet would run as a formula gets a leading apostrophe;
- * numbers (which may start with a minus) are left exactly as computed.
- */
-function field(v: Cell): string {
-  if (v === null || v === undefined) return "";
-  let s = String(v);
-  if (!NUMERIC.test(s) && /^[=+\-@\t\r]/.test(s)) s = `'${s}`;
-  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-}
-
-export function csv(comments: string[], header: string[], rows: Cell[][]): string {
-  const lines = [...comments.map((c) => `# ${c.replace(/[\r\n]+/g, " ")}`), header.map(field).join(","), ...rows.map((r) => r.map(field).join(","))];
-  return `${lines.join("\r\n")}\r\n`;
-}
+type Cell = CsvValue;
 
 function methodLine(series: YearSeries): string {
   const methods = new Set(series.months.filter((m) => m.method).map((m) => `${m.method!.emissions} / ${m.method!.factor_set} / ${m.method!.gwp}`));
@@ -66,7 +51,7 @@ export function yearCsv(series: YearSeries): string {
       t.ammonia_t, t.co2_t, t.co2e_t, t.net_co2e_t, t.co2_t_per_t_nh3, t.co2e_t_per_t_nh3, t.gj_lhv_per_t_nh3, t.theoretical_min_gj_lhv_per_t_nh3,
       "", "", "", "", "",
     ]);
-  return csv(
+  return csvDocument(
     [
       `Synledger year export: ${series.site.name} (${series.site.code}), ${series.year}`,
       methodLine(series),
@@ -90,7 +75,7 @@ export function monthStreamsCsv(site: { name: string; code: string }, run: Month
     "stream", "kind", "quantity", "unit", "uncertainty (%)", "amount (kmol)", "mass (t)", "carbon (t C)", "energy (GJ LHV)", "energy (GJ HHV)", "electricity (MWh)",
     "CO2 (t)", "CH4 (t)", "N2O (t)", "CO2e (t)",
   ];
-  if (!run.result) return csv([...comments, `the stored figures do not compute: ${run.issues.map((i) => `${i.path}: ${i.reason}`).join("; ")}`], header, []);
+  if (!run.result) return csvDocument([...comments, `the stored figures do not compute: ${run.issues.map((i) => `${i.path}: ${i.reason}`).join("; ")}`], header, []);
   const doc = toResultDocument(run.result);
   const emitted = new Map(doc.emissions_by_stream.map((e) => [e.id, e]));
   const uncertainty = new Map(run.result.streams.map((s) => [s.id, num(s.uncertainty_pct)]));
@@ -101,12 +86,12 @@ export function monthStreamsCsv(site: { name: string; code: string }, run: Month
   // Rows the emissions part adds that are not metered streams (e.g. the ammonia process itself).
   for (const e of doc.emissions_by_stream.filter((x) => !doc.streams.some((s) => s.id === x.id)))
     rows.push([e.id, e.kind, "", "", "", "", "", "", "", "", "", e.co2_t, e.ch4_t, e.n2o_t, e.co2e_t]);
-  return csv(comments, header, rows);
+  return csvDocument(comments, header, rows);
 }
 
 /** The year's emissions by source (sum of the months), as the annual page shows it. */
 export function sourcesCsv(series: YearSeries, rows: { id: string; kind: string; co2_t: string; ch4_t: string; n2o_t: string; co2e_t: string }[]): string {
-  return csv(
+  return csvDocument(
     [`Synledger emissions by source: ${series.site.name} (${series.site.code}), ${series.year}`, methodLine(series)],
     ["source", "kind", "CO2 (t)", "CH4 (t)", "N2O (t)", "CO2e (t)"],
     rows.map((r) => [r.id, r.kind, r.co2_t, r.ch4_t, r.n2o_t, r.co2e_t]),
@@ -115,7 +100,7 @@ export function sourcesCsv(series: YearSeries, rows: { id: string; kind: string;
 
 /** Gross, deducted and net CO2 of the year under each built-in factor set. */
 export function ruleSetsCsv(series: YearSeries, sets: RuleSetYear[]): string {
-  return csv(
+  return csvDocument(
     [`Synledger year under each built-in factor set: ${series.site.name} (${series.site.code}), ${series.year}`, "recorded = the set the months are stored under; the others are recomputed, never stored"],
     ["factor set", "name", "recorded", "gross CO2 (t)", "deducted CO2 (t)", "net CO2 (t)", "CO2e (t)", "net CO2e (t)", "CO2e intensity (t CO2e/t NH3)", "months not computed"],
     sets.map((s) => [

@@ -10,8 +10,9 @@ import { SUM_TOLERANCE_PCT } from "@/lib/balance/gas-properties";
 import { UNITS_BY_KIND } from "@/lib/balance/schema";
 import type { StreamKind } from "@/lib/balance/types";
 import type { Unit } from "@/lib/balance/units";
-import { HttpError, notFound, type IssueDetail } from "@/lib/auth/errors";
-import { monthFiguresSchema, PERIOD, type MonthFiguresInput } from "@/lib/validations/month";
+import { HttpError, notFound, quoted, type IssueDetail } from "@/lib/auth/errors";
+import { isMonthKey } from "@/lib/period";
+import { monthFiguresSchema, type MonthFiguresInput } from "@/lib/validations/month";
 
 /** Months in these states are frozen: only the life cycle (reopen) may change them. */
 export const READ_ONLY_STATES = ["in_review", "signed", "submitted"] as const;
@@ -39,8 +40,21 @@ export interface SaveResult {
  * editor says which version they started from, and a save over a newer version is refused with
  * what changed since (from the audit trail), so nothing anyone typed is silently lost.
  */
-export async function saveMonthFigures(db: Db, editor: Editor, siteId: string, period: string, raw: MonthFiguresInput): Promise<SaveResult> {
-  if (!PERIOD.test(period)) throw new HttpError(400, "invalid_input", `"${period}" is not a month (YYYY-MM).`, [{ path: "month", message: "must be YYYY-MM" }]);
+export interface SaveOptions {
+  /**
+   * Save against the version current when the month's row is locked, not the one the caller
+   * read: for a plant system sending one total, which has nothing of anyone else's to
+   * overwrite. Deciding it under the lock means concurrent senders queue instead of refusing
+   * each other. `expectedVersion` of the input is then ignored.
+   */
+  againstCurrentVersion?: boolean;
+}
+
+export const archivedSiteRefusal = (name: string) =>
+  new HttpError(409, "site_archived", `${name} is archived: it takes no new figures. An administrator can restore it under Settings → Sites.`);
+
+export async function saveMonthFigures(db: Db, editor: Editor, siteId: string, period: string, raw: MonthFiguresInput, options: SaveOptions = {}): Promise<SaveResult> {
+  if (!isMonthKey(period)) throw new HttpError(400, "invalid_input", `${quoted(period)} is not a month (YYYY-MM).`, [{ path: "month", message: "must be YYYY-MM" }]);
   if (period > currentPeriod()) {
     throw new HttpError(400, "future_month", `${period} has not begun yet; its figures can be entered from its first day.`, [{ path: "month", message: "is a month in the future" }]);
   }
@@ -48,11 +62,12 @@ export async function saveMonthFigures(db: Db, editor: Editor, siteId: string, p
   return db.transaction(async (tx) => {
     const site = await findSite(tx, editor.organisationId, siteId);
     if (!site) throw notFound("The site");
+    if (site.archivedAt) throw archivedSiteRefusal(site.name);
     const month = await lockMonth(tx, site.id, period);
     if ((READ_ONLY_STATES as readonly string[]).includes(month.state)) {
       throw new HttpError(409, "month_read_only", `${period} is ${month.state.replace("_", " ")}: its figures can no longer be edited.`);
     }
-    if (month.version !== input.expectedVersion) {
+    if (!options.againstCurrentVersion && month.version !== input.expectedVersion) {
       const since = await tx
         .select({ actor: auditEvents.actorLabel, at: auditEvents.at, entityId: auditEvents.entityId, before: auditEvents.before, after: auditEvents.after, action: auditEvents.action })
         .from(auditEvents)

@@ -1,4 +1,5 @@
 import "server-only";
+import { escapeHtml } from "@/lib/mail/html";
 import type { Tx } from "@/db/client";
 import { listMembers } from "@/db/queries/members";
 import { ROLE_LABELS, type Role } from "@/lib/auth/roles";
@@ -6,10 +7,6 @@ import { enqueueMail } from "@/lib/mail/outbox";
 import { appUrl } from "@/lib/mail/transport";
 import { monthLabel } from "@/reports/format";
 import { RULES, STATE_LABELS, type TransitionName } from "./transitions";
-
-function escapeHtml(s: string): string {
-  return s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c] ?? c);
-}
 
 const NEXT_STEP: Record<TransitionName, string> = {
   balance: "An environmental officer can now check the method and factor set and send the statement for sign-off.",

@@ -1,10 +1,7 @@
 import "server-only";
+import { escapeHtml } from "@/lib/mail/html";
 import { ROLE_LABELS, type Role } from "@/lib/auth/roles";
 import { appUrl, type OutgoingMail } from "./transport";
-
-function escapeHtml(s: string): string {
-  return s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c] ?? c);
-}
 
 /** The invitation e-mail: plain text first (many plant mail systems strip HTML), a simple HTML copy. */
 export function invitationMail(input: {

@@ -24,6 +24,17 @@ export const inviteSchema = z.object({
   roles: roleList,
 });
 
+/** Disabling or enabling a member's account (settings → users). */
+export const memberAccessSchema = z.object({
+  userId: z.uuid("That member could not be identified; reload the page."),
+  access: z.enum(["disable", "enable"], { error: "Choose disable or enable." }),
+});
+
+/** Removing a member from the organisation (settings → users). */
+export const removeMemberSchema = z.object({
+  userId: z.uuid("That member could not be identified; reload the page."),
+});
+
 export const revokeSchema = z.object({
   invitationId: z.uuid("That invitation could not be identified; reload the page."),
 });

@@ -1,8 +1,17 @@
 import { z } from "zod";
 import { COMPONENTS } from "@/lib/balance/components";
+import { LIMITS } from "@/lib/balance/limits";
 import { UNITS } from "@/lib/balance/units";
 
 const DECIMAL = /^\d+(\.\d+)?$/;
+
+/** Text people type: within a length, and whole Unicode (a lone surrogate cannot be stored or printed). */
+export const typedText = (label: string, max: number) =>
+  z
+    .string()
+    .trim()
+    .max(max, `${label} is longer than ${max} characters`)
+    .refine((s) => s.isWellFormed(), `${label} holds a broken character (a lone UTF-16 surrogate); retype it`);
 
 /** A non-negative decimal written as text; commas or spaces as thousands separators are refused, not guessed. */
 export const decimalText = (label: string) =>
@@ -10,14 +19,15 @@ export const decimalText = (label: string) =>
     .string({ error: `${label} is required` })
     .trim()
     .min(1, `${label} is required`)
+    .max(LIMITS.numberChars, `${label} is longer than ${LIMITS.numberChars} characters`)
     .regex(DECIMAL, `${label} must be a non-negative number with a dot for decimals (e.g. 1250.5)`);
 
 export const readingInputSchema = z.strictObject({
-  stream: z.string().min(1, "stream is required"),
+  stream: z.string().min(1, "stream is required").max(LIMITS.nameChars, `stream is longer than ${LIMITS.nameChars} characters`),
   quantity: decimalText("quantity"),
   unit: z.enum(UNITS, { error: (i) => `unknown unit ${JSON.stringify(i.input)} (one of: ${UNITS.join(", ")})` }),
   source: z.enum(["meter", "estimate", "invoice"]).default("meter"),
-  note: z.string().trim().max(1000, "note is longer than 1000 characters").optional(),
+  note: typedText("note", LIMITS.noteChars).optional(),
 });
 export type ReadingInput = z.input<typeof readingInputSchema>;
 
@@ -38,8 +48,8 @@ export const analysisInputSchema = z.strictObject({
       }
     }),
   sampledOn: z.iso.date({ error: "sampled on must be a date YYYY-MM-DD" }).optional(),
-  laboratory: z.string().trim().max(200).optional(),
-  note: z.string().trim().max(1000).optional(),
+  laboratory: typedText("laboratory", LIMITS.nameChars).optional(),
+  note: typedText("note", LIMITS.noteChars).optional(),
 });
 export type AnalysisInput = z.input<typeof analysisInputSchema>;
 
@@ -49,10 +59,10 @@ export const PERIOD = /^\d{4}-(0[1-9]|1[0-2])$/;
 export const monthFiguresSchema = z.strictObject({
   /** The version the editor started from; 0 for a month nobody has started. */
   expectedVersion: z.number().int().min(0),
-  readings: z.array(readingInputSchema).max(500).default([]),
+  readings: z.array(readingInputSchema).max(LIMITS.streams, `more than ${LIMITS.streams} readings in one month`).default([]),
   /** Stream keys whose reading is to be removed. */
-  removeReadings: z.array(z.string()).max(500).default([]),
-  analyses: z.array(analysisInputSchema).max(50).default([]),
-  balanceNote: z.string().trim().max(4000).optional(),
+  removeReadings: z.array(z.string().max(LIMITS.nameChars)).max(LIMITS.streams, `more than ${LIMITS.streams} streams to clear in one month`).default([]),
+  analyses: z.array(analysisInputSchema).max(LIMITS.analyses, `more than ${LIMITS.analyses} analyses in one month`).default([]),
+  balanceNote: typedText("balance note", LIMITS.noteChars).optional(),
 });
 export type MonthFiguresInput = z.input<typeof monthFiguresSchema>;

@@ -6,7 +6,7 @@ import type { Role } from "@/lib/auth/roles";
 import { closeTestDb, testDb } from "../support/db";
 import { createOrg, type FixtureOrg } from "../support/fixtures";
 import { actAs } from "../support/mock-auth";
-import { EXAMPLE_TEXT, addExampleStreams, ctx, errorOf, request } from "./api-support";
+import { EXAMPLE_TEXT, addExampleStreams, exampleFor, ctx, errorOf, request } from "./api-support";
 
 vi.mock("@/auth", () => import("../support/mock-auth"));
 
@@ -67,7 +67,7 @@ describe("POST /api/v1/calculate", () => {
 describe("import, result and export of a stored month", () => {
   it("imports the example file: readings and analyses in one save, channel import", async () => {
     actAs(org.session("process_engineer"));
-    const res = await importFile(org.siteId, "2026-03", EXAMPLE_TEXT);
+    const res = await importFile(org.siteId, "2026-03", exampleFor(org));
     expect(res.status).toBe(200);
     expect(await res.json()).toMatchObject({ month: "2026-03", version: 1, readings: 9, analyses: 2 });
     const events = await testDb().select().from(auditEvents).where(and(eq(auditEvents.organisationId, org.id), eq(auditEvents.entity, "reading")));
@@ -100,7 +100,7 @@ describe("import, result and export of a stored month", () => {
 
   it("names streams[i].id for a stream the site does not have, and saves nothing", async () => {
     actAs(org.session("process_engineer"));
-    const doc = JSON.parse(EXAMPLE_TEXT);
+    const doc = JSON.parse(exampleFor(org));
     doc.month = "2026-05";
     doc.streams[2].id = "air-2";
     const res = await importFile(org.siteId, "2026-05", JSON.stringify(doc));
@@ -111,7 +111,7 @@ describe("import, result and export of a stored month", () => {
 
   it("names the month of a file sent to another month, and the kind that differs from the site's", async () => {
     actAs(org.session("process_engineer"));
-    const doc = JSON.parse(EXAMPLE_TEXT);
+    const doc = JSON.parse(exampleFor(org));
     doc.streams[3].kind = "fuel-gas";
     delete doc.streams[3].fate;
     const res = await importFile(org.siteId, "2026-06", JSON.stringify(doc));
@@ -120,9 +120,9 @@ describe("import, result and export of a stored month", () => {
 
   it("a bad file is 400 with its JSON path; a stale expectedVersion is 409", async () => {
     actAs(org.session("process_engineer"));
-    const bad = await importFile(org.siteId, "2026-03", readFileSync("examples/bad-estuary-2026-03.json", "utf8"));
+    const bad = await importFile(org.siteId, "2026-03", exampleFor(org, readFileSync("examples/bad-estuary-2026-03.json", "utf8")));
     expect(await errorOf(bad)).toMatchObject({ code: "invalid_plant_month", issues: [{ path: "streams[4].quantity" }] });
-    const stale = await importFile(org.siteId, "2026-03", EXAMPLE_TEXT, "?expectedVersion=0");
+    const stale = await importFile(org.siteId, "2026-03", exampleFor(org), "?expectedVersion=0");
     expect(stale.status).toBe(409);
   });
 
@@ -141,7 +141,7 @@ describe("import, result and export of a stored month", () => {
     actAs(null);
     expect((await result(org.siteId, "2026-03")).status).toBe(401);
     expect((await exportMonth(org.siteId, "2026-03")).status).toBe(401);
-    expect((await importFile(org.siteId, "2026-03", EXAMPLE_TEXT)).status).toBe(401);
+    expect((await importFile(org.siteId, "2026-03", exampleFor(org))).status).toBe(401);
   });
 
   it("a month nobody started is 404; a stored month that cannot be computed is 422 with paths", async () => {

@@ -33,6 +33,12 @@ export async function errorOf(res: Response): Promise<ErrorBody["error"]> {
 
 export const EXAMPLE_TEXT = readFileSync("examples/estuary-2026-03.json", "utf8");
 
+/** The example file as written for another site: its `site` must name the site it is imported into. */
+export function exampleFor(site: { siteName: string }, text = EXAMPLE_TEXT): string {
+  const doc = JSON.parse(text) as { site: string };
+  return text.replace(`"site": ${JSON.stringify(doc.site)}`, `"site": ${JSON.stringify(site.siteName)}`);
+}
+
 /** Streams of the example plant-month file, so its months import into the fixture site. */
 export async function addExampleStreams(db: Db, siteId: string): Promise<string[]> {
   const doc = JSON.parse(EXAMPLE_TEXT) as { streams: { id: string; kind: string; analysis?: string; fate?: string; destination?: string; unit: string; uncertainty_pct?: string; meter?: string }[] };

@@ -77,7 +77,7 @@ describe("annual statement", () => {
     actAs(org.session("environmental_officer"));
     const { GET } = await import("@/app/api/v1/sites/[siteId]/years/[year]/export/route");
     const csv = await (await GET(request("GET", `/x?format=csv`), ctx({ siteId, year: "2026" }))).text();
-    const lines = csv.trim().split("\r\n").filter((l) => !l.startsWith("#"));
+    const lines = csv.trim().split("\r\n").filter((l) => !l.startsWith('"#'));
     const cols = lines[0].split(",");
     const total = lines[lines.length - 1].split(",");
     const pdf = (await statementPdf(testDb(), { organisationId: org.id }, row.id))!.pdf;

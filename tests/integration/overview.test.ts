@@ -139,8 +139,8 @@ describe("exports", () => {
     const res = await exportOf(estuaryId, "format=csv");
     expect(res.headers.get("content-type")).toMatch(/^text\/csv/);
     const lines = (await res.text()).trim().split("\r\n");
-    expect(lines.filter((l) => l.startsWith("#")).join("\n")).toMatch(/method \/ factor set \/ GWP: carbon-mass-balance \/ ipcc-2006 \/ AR5/);
-    const [header, ...rows] = lines.filter((l) => !l.startsWith("#"));
+    expect(lines.filter((l) => l.startsWith('"#')).join("\n")).toMatch(/method \/ factor set \/ GWP: carbon-mass-balance \/ ipcc-2006 \/ AR5/);
+    const [header, ...rows] = lines.filter((l) => !l.startsWith('"#'));
     const cols = header.split(",");
     expect(cols).toContain("CO2e intensity (t CO2e/t NH3)");
     const col = (row: string[], name: string) => row[cols.indexOf(name)];
@@ -160,7 +160,7 @@ describe("exports", () => {
   it("a month's CSV has one row per stream; JSON holds the twelve plant-month files", async () => {
     actAs(org.session("signatory"));
     const csv = await (await exportOf(estuaryId, "format=csv&month=2026-03")).text();
-    const rows = csv.trim().split("\r\n").filter((l) => !l.startsWith("#"));
+    const rows = csv.trim().split("\r\n").filter((l) => !l.startsWith('"#'));
     expect(rows[0]).toMatch(/^stream,kind,quantity,unit/);
     expect(rows.slice(1).map((r) => r.split(",")[0])).toEqual(expect.arrayContaining(["feed", "fuel", "nh3", "co2-urea"]));
     const json = await (await exportOf(estuaryId, "format=json")).json();
@@ -174,7 +174,7 @@ describe("exports", () => {
   it("the rule-set table recomputes the year under each built-in factor set", async () => {
     actAs(org.session("auditor"));
     const text = await (await exportOf(estuaryId, "format=csv&table=rule-sets")).text();
-    const rows = text.trim().split("\r\n").filter((l) => !l.startsWith("#")).slice(1);
+    const rows = text.trim().split("\r\n").filter((l) => !l.startsWith('"#')).slice(1);
     expect(rows.map((r) => r.split(",")[0])).toEqual(["ipcc-2006", "us-40cfr98", "eu-mrr"]);
     // The set's name holds commas, so it is quoted.
     expect(rows[0]).toMatch(/^ipcc-2006,"IPCC 2006 Guidelines \(Vol 2 energy, Vol 3 Ch 3 ammonia\)",yes,\d/);

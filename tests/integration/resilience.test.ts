@@ -65,7 +65,7 @@ beforeAll(async () => {
     { siteId: org.siteId, key: "nh3", name: "Ammonia", kind: "ammonia", unit: "t" },
   ]);
   const m = org.members.process_engineer;
-  actor = { userId: m.id, name: m.name, email: m.email, organisationId: org.id, organisationName: org.name, roles: m.roles };
+  actor = { userId: m.id, sessionId: m.sessionId, name: m.name, email: m.email, organisationId: org.id, organisationName: org.name, roles: m.roles };
 }, 180_000);
 
 afterAll(async () => {

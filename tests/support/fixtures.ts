@@ -1,6 +1,7 @@
 import { randomUUID } from "node:crypto";
 import type { Session } from "next-auth";
 import type { Db } from "@/db/client";
+import { openSession } from "@/db/queries/sessions";
 import { memberships, organisations, sites, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
 import { ROLES, type Role } from "@/lib/auth/roles";
@@ -10,6 +11,8 @@ let hash: string | null = null;
 
 export interface FixtureUser {
   id: string;
+  /** An open user_sessions row, as a sign-in would have made. */
+  sessionId: string;
   email: string;
   name: string;
   roles: Role[];
@@ -19,6 +22,8 @@ export interface FixtureOrg {
   id: string;
   name: string;
   siteId: string;
+  siteName: string;
+  siteCode: string;
   /** One member per role, keyed by role, and `all`: one member holding every role. */
   members: Record<Role | "all", FixtureUser>;
   session(role: Role | "all"): Session;
@@ -42,17 +47,20 @@ export async function createOrg(db: Db, label = "Org"): Promise<FixtureOrg> {
     const email = `${role}.${tag}@fixture.example`;
     const [u] = await db.insert(users).values({ email, name: `${role} ${tag}`, passwordHash: hash }).returning();
     await db.insert(memberships).values({ userId: u.id, organisationId: org.id, roles });
-    members[role] = { id: u.id, email, name: u.name, roles };
+    const sessionId = await openSession(db, u.id, "192.0.2.10", "fixture");
+    members[role] = { id: u.id, sessionId, email, name: u.name, roles };
   }
   return {
     id: org.id,
     name: org.name,
     siteId: site.id,
+    siteName: site.name,
+    siteCode: site.code,
     members,
     session(role: Role | "all"): Session {
       const m = members[role];
       return {
-        user: { id: m.id, email: m.email, name: m.name, organisationId: org.id, organisationName: org.name, roles: m.roles },
+        user: { id: m.id, sessionId: m.sessionId, email: m.email, name: m.name, organisationId: org.id, organisationName: org.name, roles: m.roles },
         expires: new Date(Date.now() + 3600_000).toISOString(),
       };
     },

@@ -12,6 +12,8 @@ const NOTICES: Record<string, string> = {
   joined: "Your account is ready. Sign in with the e-mail address the invitation was sent to.",
   added: "The invitation was accepted: your account now has the new organisation's roles. Sign in to continue.",
   "signed-out": "You are signed out.",
+  "password-changed": "Your password was changed and every session of your account has ended. Sign in with the new password.",
+  "signed-out-everywhere": "Every session of your account has ended, this one included.",
 };
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {

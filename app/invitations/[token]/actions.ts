@@ -6,10 +6,12 @@ import { getDb } from "@/db";
 import { recordAudit } from "@/db/queries/audit";
 import { findInvitationByToken, invitationStatus, markInvitationAccepted } from "@/db/queries/invitations";
 import { grantMembership } from "@/db/queries/members";
-import { findUserByEmail, recordSignInAttempt, signInBlocked } from "@/db/queries/users";
+import { findUserByEmail } from "@/db/queries/users";
 import { users } from "@/db/schema";
-import { hashPassword, passwordProblems, verifyPassword } from "@/lib/auth/password";
+import { checkPassword } from "@/lib/auth/credentials";
+import { hashPassword, passwordProblems } from "@/lib/auth/password";
 import { isRole } from "@/lib/auth/roles";
+import { clientAddressOf } from "@/lib/net/forwarded";
 import { acceptExistingAccountSchema, acceptNewAccountSchema } from "@/lib/validations/invitation";
 import { formFields } from "@/lib/validations/members";
 import { STATUS_MESSAGES } from "./status-messages";
@@ -24,11 +26,6 @@ function firstErrors(issues: readonly { path: readonly PropertyKey[]; message: s
   const out: Record<string, string> = {};
   for (const i of issues) out[String(i.path[0] ?? "form")] ??= i.message;
   return out;
-}
-
-async function clientIp(): Promise<string> {
-  const h = await headers();
-  return h.get("x-forwarded-for")?.split(",")[0]?.trim() || h.get("x-real-ip") || "local";
 }
 
 /**
@@ -51,14 +48,13 @@ export async function acceptInvitation(_prev: AcceptState, formData: FormData): 
   if (existing) {
     const parsed = acceptExistingAccountSchema.safeParse(fields);
     if (!parsed.success) return { message: "Check the highlighted fields.", errors: firstErrors(parsed.error.issues) };
-    // Same limit as the sign-in form, so this page cannot be used to guess passwords.
-    const ip = await clientIp();
-    if (await signInBlocked(db, existing.email, ip)) {
+    // The same check, throttling and notice as the sign-in form, so this page cannot be used to guess passwords.
+    const h = await headers();
+    const checked = await checkPassword(db, existing.email, parsed.data.password, { address: clientAddressOf(h), userAgent: h.get("user-agent") ?? "" });
+    if (!checked.ok && checked.reason === "rate-limited") {
       return { message: "Too many unsuccessful attempts. Wait about 15 minutes before trying again." };
     }
-    const ok = await verifyPassword(parsed.data.password, existing.passwordHash);
-    await recordSignInAttempt(db, existing.email, ip, ok);
-    if (!ok) return { message: "Check the highlighted fields.", errors: { password: "That is not the password of this account." } };
+    if (!checked.ok) return { message: "Check the highlighted fields.", errors: { password: "That is not the password of this account." } };
     if (existing.disabled) return { message: "Your Synledger account is disabled. Ask the administrator who invited you to enable it." };
   } else {
     const parsed = acceptNewAccountSchema.safeParse(fields);

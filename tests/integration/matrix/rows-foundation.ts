@@ -1,8 +1,9 @@
 import { randomUUID } from "node:crypto";
-import { and, eq } from "drizzle-orm";
-import { invitations } from "@/db/schema";
+import { and, eq, inArray } from "drizzle-orm";
+import { invitations, userSessions } from "@/db/schema";
+import { ROLES } from "@/lib/auth/roles";
 import { newInvitationToken } from "@/db/queries/invitations";
-import type { MatrixRow } from "./types";
+import type { MatrixContext, MatrixRow } from "./types";
 
 const form = (fields: Record<string, string | string[]>) => {
   const fd = new FormData();
@@ -78,4 +79,55 @@ export const foundationRows: MatrixRow[] = [
       return revokeMemberInvitation(null, form({ invitationId: inv.id }));
     },
   },
+  {
+    id: "app/(app)/settings/users/actions.ts#setMemberAccess",
+    allowed: ["administrator"],
+    async call({ target }) {
+      const { setMemberAccess } = await import("@/app/(app)/settings/users/actions");
+      return setMemberAccess(null, form({ userId: target.members.auditor.id, access: "disable" }));
+    },
+  },
+  {
+    id: "app/(app)/settings/users/actions.ts#removeMember",
+    allowed: ["administrator"],
+    async call({ target }) {
+      const { removeMember } = await import("@/app/(app)/settings/users/actions");
+      return removeMember(null, form({ userId: target.members.auditor.id }));
+    },
+  },
+  {
+    id: "app/(app)/account/actions.ts#changePassword",
+    allowed: ROLES,
+    async call() {
+      const { changePassword } = await import("@/app/(app)/account/actions");
+      return changePassword(null, form({ current: "Not#TheCurrent0ne", password: "Another#Passw0rd-9", confirm: "Another#Passw0rd-9" }));
+    },
+    crossOrgSeesNothing: (_r, { db, target }) => sessionsIntact(db, target),
+  },
+  {
+    id: "app/(app)/account/actions.ts#signOutEverywhere",
+    allowed: ROLES,
+    async call() {
+      const { signOutEverywhere } = await import("@/app/(app)/account/actions");
+      return signOutEverywhere(null, form({}));
+    },
+    crossOrgSeesNothing: (_r, { db, target }) => sessionsIntact(db, target),
+  },
+  {
+    id: "app/(app)/account/actions.ts#endOneSession",
+    allowed: ROLES,
+    async call({ target }) {
+      const { endOneSession } = await import("@/app/(app)/account/actions");
+      return endOneSession(null, form({ sessionId: target.members.auditor.sessionId }));
+    },
+    // Only one's own sessions can be ended: target's stay open whoever asks.
+    crossOrgSeesNothing: (_r, { db, target }) => sessionsIntact(db, target),
+  },
 ];
+
+/** True when no session of the target organisation's members has been ended. */
+async function sessionsIntact(db: MatrixContext["db"], target: MatrixContext["target"]): Promise<boolean> {
+  const ids = Object.values(target.members).map((m) => m.sessionId);
+  const rows = await db.select({ endedAt: userSessions.endedAt }).from(userSessions).where(inArray(userSessions.id, ids));
+  return rows.length === ids.length && rows.every((r) => r.endedAt === null);
+}

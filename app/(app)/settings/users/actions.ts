@@ -12,11 +12,13 @@ import {
   newInvitationToken,
   revokeInvitation,
 } from "@/db/queries/invitations";
-import { isMemberByEmail, lockMembership, lockOtherAdministrators, setMemberRoles } from "@/db/queries/members";
+import type { Tx } from "@/db/client";
+import { deleteMembership, isMemberByEmail, lockMembership, lockOtherAdministrators, membershipCount, setMemberRoles, setUserDisabled } from "@/db/queries/members";
+import { endSessionsOf } from "@/db/queries/sessions";
 import { guardedAction, type ActionResult } from "@/lib/auth/guard";
 import { invitationMail } from "@/lib/mail/invitation-mail";
 import { MailNotSent, sendMail } from "@/lib/mail/transport";
-import { formFields, inviteSchema, memberRolesSchema, revokeSchema } from "@/lib/validations/members";
+import { formFields, inviteSchema, memberAccessSchema, memberRolesSchema, removeMemberSchema, revokeSchema } from "@/lib/validations/members";
 
 const PAGE = "/settings/users";
 
@@ -136,6 +138,84 @@ export async function revokeMemberInvitation(_prev: ActionResult | null, formDat
         after: { email: inv.email, roles: inv.roles, status: "revoked" },
       });
       return { ok: true, message: `Invitation to ${inv.email} revoked.` };
+    });
+  });
+  if (result.ok) revalidatePath(PAGE);
+  return result;
+}
+
+/** The organisation must keep an administrator who can still sign in. */
+async function lastAdministratorRefusal(tx: Tx, organisationId: string, member: { roles: string[] }, userId: string, what: string): Promise<string | null> {
+  if (!member.roles.includes("administrator")) return null;
+  const others = await lockOtherAdministrators(tx, organisationId, userId);
+  return others.length === 0 ? `This is the only administrator, so you cannot ${what}. Make another member an administrator first.` : null;
+}
+
+/**
+ * Disables or enables a member's account. Disabling ends every session of theirs at its next
+ * request and refuses their sign-in; it is refused for one's own account, for the last
+ * administrator, and for an account that belongs to other organisations too (whose
+ * administrators did not agree; remove the member from this one instead).
+ */
+export async function setMemberAccess(_prev: ActionResult | null, formData: FormData): Promise<ActionResult> {
+  const result = await guardedAction("org:manage-users", "disable or enable accounts", async (actor) => {
+    const input = memberAccessSchema.parse(formFields(formData));
+    if (input.userId === actor.userId) return { ok: false, message: "You cannot disable your own account; ask another administrator." };
+    return getDb().transaction(async (tx): Promise<ActionResult> => {
+      const member = await lockMembership(tx, actor.organisationId, input.userId);
+      if (!member) return { ok: false, message: "That person is not a member of your organisation (any more); reload the page." };
+      const disable = input.access === "disable";
+      if (member.disabled === disable) return { ok: true, message: `${member.name}'s account is already ${disable ? "disabled" : "enabled"}.` };
+      if ((await membershipCount(tx, input.userId)) > 1) {
+        return { ok: false, message: `${member.name} also belongs to other organisations, so the account cannot be ${disable ? "disabled" : "enabled"} from here. Remove them from ${actor.organisationName} instead.` };
+      }
+      if (disable) {
+        const refusal = await lastAdministratorRefusal(tx, actor.organisationId, member, input.userId, "disable the account");
+        if (refusal) return { ok: false, message: refusal };
+      }
+      await setUserDisabled(tx, input.userId, disable);
+      const ended = disable ? await endSessionsOf(tx, input.userId, "disabled") : 0;
+      await recordAudit(tx, {
+        organisationId: actor.organisationId,
+        actorUserId: actor.userId,
+        actorLabel: actor.name,
+        channel: "form",
+        action: disable ? "user.disabled" : "user.enabled",
+        entity: "user",
+        entityId: input.userId,
+        before: { user: member.email, disabled: member.disabled },
+        after: { user: member.email, disabled: disable, ...(disable ? { sessionsEnded: ended } : {}) },
+      });
+      return { ok: true, message: disable ? `${member.name}'s account is disabled; their sessions have ended.` : `${member.name}'s account is enabled again.` };
+    });
+  });
+  if (result.ok) revalidatePath(PAGE);
+  return result;
+}
+
+/** Takes every role of a member away by removing them from the organisation; their sessions end. */
+export async function removeMember(_prev: ActionResult | null, formData: FormData): Promise<ActionResult> {
+  const result = await guardedAction("org:manage-users", "remove members", async (actor) => {
+    const input = removeMemberSchema.parse(formFields(formData));
+    return getDb().transaction(async (tx): Promise<ActionResult> => {
+      const member = await lockMembership(tx, actor.organisationId, input.userId);
+      if (!member) return { ok: false, message: "That person is not a member of your organisation (any more); reload the page." };
+      const refusal = await lastAdministratorRefusal(tx, actor.organisationId, member, input.userId, "remove them");
+      if (refusal) return { ok: false, message: refusal };
+      await deleteMembership(tx, member.id);
+      const ended = await endSessionsOf(tx, input.userId, "roles-removed");
+      await recordAudit(tx, {
+        organisationId: actor.organisationId,
+        actorUserId: actor.userId,
+        actorLabel: actor.name,
+        channel: "form",
+        action: "member.removed",
+        entity: "membership",
+        entityId: member.id,
+        before: { user: member.email, roles: member.roles },
+        after: { user: member.email, roles: [], sessionsEnded: ended },
+      });
+      return { ok: true, message: `${member.name} no longer belongs to ${actor.organisationName}; their sessions have ended.` };
     });
   });
   if (result.ok) revalidatePath(PAGE);

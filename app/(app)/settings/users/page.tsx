@@ -8,6 +8,7 @@ import { listMembers } from "@/db/queries/members";
 import { requirePageActor } from "@/lib/auth/guard";
 import { ROLE_LABELS, isRole } from "@/lib/auth/roles";
 import { InviteForm } from "./_components/invite-form";
+import { MemberAccessForm } from "./_components/member-access-form";
 import { MemberRolesForm } from "./_components/member-roles-form";
 import { RevokeInvitationForm } from "./_components/revoke-invitation-form";
 import { SettingsTabs } from "../settings-tabs";
@@ -46,6 +47,7 @@ export default async function UsersPage() {
                 <th scope="col" className="px-3 py-2 font-medium">Member</th>
                 <th scope="col" className="px-3 py-2 font-medium">Roles</th>
                 <th scope="col" className="px-3 py-2 font-medium whitespace-nowrap">Member since</th>
+                <th scope="col" className="px-3 py-2 font-medium">Access</th>
               </tr>
             </thead>
             <tbody className="divide-y divide-rule">
@@ -67,6 +69,9 @@ export default async function UsersPage() {
                     <MemberRolesForm userId={m.userId} name={m.name} roles={m.roles.filter(isRole)} />
                   </td>
                   <td className="num px-3 py-2.5 whitespace-nowrap text-ink-soft">{formatDate(m.since)}</td>
+                  <td className="px-3 py-2.5">
+                    {m.userId === actor.userId ? <span className="text-xs text-ink-soft">Your own account: see Your account</span> : <MemberAccessForm userId={m.userId} name={m.name} disabled={m.disabled} />}
+                  </td>
                 </tr>
               ))}
             </tbody>

@@ -25,7 +25,7 @@ export const GET = apiRoute<Params>("org:read", "download attachments", async (_
       "content-length": String(file.content.length),
       "content-disposition": disposition(file.fileName),
       "x-content-type-options": "nosniff",
-      "content-security-policy": "default-src 'none'; sandbox",
+      "content-security-policy": "default-src 'none'; frame-ancestors 'none'; sandbox",
       "cache-control": "private, no-store",
       etag: `"${file.sha256}"`,
     },

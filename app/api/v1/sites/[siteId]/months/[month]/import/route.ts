@@ -1,6 +1,6 @@
 import { ZodError } from "zod";
 import { getDb } from "@/db";
-import { currentMonthVersion, listStreamsOfSite } from "@/db/queries/api-reads";
+import { listStreamsOfSite } from "@/db/queries/api-reads";
 import { HttpError, zodIssues } from "@/lib/auth/errors";
 import { editorOf } from "@/lib/api/actor";
 import { readBodyText } from "@/lib/api/body";
@@ -24,10 +24,10 @@ export const POST = v1Route<Params>({ permission: "month:enter", what: "import m
   const text = await readBodyText(req);
   const db = getDb();
   const streams = await listStreamsOfSite(db, site.id);
-  const version = raw !== null ? Number(raw) : await currentMonthVersion(db, site.id, period);
-  const plan = planImport(text, period, site.name, streams, version);
+  // Without expectedVersion the file is saved over whatever version is current when the month is locked.
+  const plan = planImport(text, period, site, streams, raw !== null ? Number(raw) : 0);
   try {
-    const saved = await saveMonthFigures(db, editorOf(caller, "import"), site.id, period, plan.input);
+    const saved = await saveMonthFigures(db, editorOf(caller, "import"), site.id, period, plan.input, { againstCurrentVersion: raw === null });
     return Response.json({ month: period, version: saved.version, changed: saved.changed, readings: plan.input.readings?.length ?? 0, analyses: plan.input.analyses?.length ?? 0 });
   } catch (err) {
     // Issues are reported in the file's own terms, so the sender can find the line to fix.

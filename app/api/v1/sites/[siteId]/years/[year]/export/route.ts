@@ -3,6 +3,7 @@ import { loadSiteYear, seriesOf } from "@/db/queries/overview";
 import { HttpError, notFound } from "@/lib/auth/errors";
 import { v1Route } from "@/lib/api/route";
 import { exportName, monthStreamsCsv, ruleSetsCsv, sourcesCsv, yearCsv, yearDocument, yearParam } from "@/lib/ledger/exports";
+import { isMonthOfYear } from "@/lib/period";
 import { yearBySource, yearUnderEachFactorSet } from "@/lib/ledger/year";
 
 type Params = { siteId: string; year: string };
@@ -31,16 +32,18 @@ function download(body: string, type: string, name: string) {
  * A year without months exports headers only, so a script can tell "nothing yet" from an error.
  */
 export const GET = v1Route<Params>({ permission: "org:read", what: "export years" }, async (req, caller, { siteId, year }) => {
+  // The path's year is checked before anything else reads it.
+  const y4 = yearParam(year);
   const q = new URL(req.url).searchParams;
   const format = q.get("format") ?? "csv";
   if (format !== "csv" && format !== "json") throw bad("format", "use csv or json");
   const month = q.get("month");
-  if (month !== null && !new RegExp(`^${year}-(0[1-9]|1[0-2])$`).test(month)) throw bad("month", `write a month of ${year} as YYYY-MM`);
+  if (month !== null && !isMonthOfYear(month, y4)) throw bad("month", `write a month of ${y4} as YYYY-MM`);
   const table = (q.get("table") ?? (month ? "streams" : "months")) as Table;
   if (!TABLES.includes(table)) throw bad("table", `use one of ${TABLES.join(", ")}`);
   if ((table === "streams") !== (month !== null)) throw bad("table", "streams goes with a month, the other tables with the whole year");
 
-  const y = await loadSiteYear(getDb(), caller.organisationId, siteId, yearParam(year));
+  const y = await loadSiteYear(getDb(), caller.organisationId, siteId, y4);
   if (!y) throw notFound("The site");
   const run = month ? y.runs.find((r) => r.period === month) : undefined;
   if (month && !run) throw new HttpError(404, "not_found", `No figures have been entered for ${month} at ${y.site.name} yet.`);

@@ -4,7 +4,7 @@ import { HttpError } from "@/lib/auth/errors";
 import { editorOf } from "@/lib/api/actor";
 import { readJsonBody } from "@/lib/api/body";
 import { v1Route } from "@/lib/api/route";
-import { saveWithCurrentVersion } from "@/lib/api/save-one";
+import { saveOne } from "@/lib/api/save-one";
 import { periodParam } from "@/lib/api/site-month";
 import { analysisInputSchema } from "@/lib/validations/month";
 
@@ -19,9 +19,6 @@ export const PUT = v1Route<Params>({ permission: "month:enter", what: "enter mon
   // The key comes from the path; checking it with the shared rule gives the same message as the form.
   const named = analysisInputSchema.shape.key.safeParse(key);
   if (!named.success) throw new HttpError(400, "invalid_input", "The analysis name in the path is not valid.", [{ path: "key", message: named.error.issues[0].message }]);
-  const saved = await saveWithCurrentVersion(getDb(), editorOf(caller), siteId, period, expectedVersion, (v) => ({
-    expectedVersion: v,
-    analyses: [{ ...analysis, key: named.data }],
-  }));
+  const saved = await saveOne(getDb(), editorOf(caller), siteId, period, expectedVersion, { analyses: [{ ...analysis, key: named.data }] });
   return Response.json({ month: period, key: named.data, version: saved.version, changed: saved.changed });
 });

@@ -2,7 +2,7 @@ import { z } from "zod";
 import { getDb } from "@/db";
 import { editorOf } from "@/lib/api/actor";
 import { readJsonBody } from "@/lib/api/body";
-import { saveWithCurrentVersion } from "@/lib/api/save-one";
+import { saveOne } from "@/lib/api/save-one";
 import { v1Route } from "@/lib/api/route";
 import { periodParam } from "@/lib/api/site-month";
 import { readingInputSchema } from "@/lib/validations/month";
@@ -20,10 +20,7 @@ export const PUT = v1Route<Params>(
   async (req, caller, { siteId, month, stream }) => {
     const period = periodParam(month);
     const { expectedVersion, ...reading } = await readJsonBody(req, bodySchema, ["expectedVersion"]);
-    const saved = await saveWithCurrentVersion(getDb(), editorOf(caller), siteId, period, expectedVersion, (v) => ({
-      expectedVersion: v,
-      readings: [{ ...reading, stream }],
-    }));
+    const saved = await saveOne(getDb(), editorOf(caller), siteId, period, expectedVersion, { readings: [{ ...reading, stream }] });
     return Response.json({ month: period, stream, version: saved.version, changed: saved.changed });
   },
 );

@@ -1,0 +1,13 @@
+CREATE TABLE "user_sessions" (
+	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
+	"user_id" uuid NOT NULL,
+	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"last_seen_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"address" text NOT NULL,
+	"user_agent" text DEFAULT '' NOT NULL,
+	"ended_at" timestamp with time zone,
+	"ended_reason" text
+);
+--> statement-breakpoint
+ALTER TABLE "user_sessions" ADD CONSTRAINT "user_sessions_user_id_users_id_fk" FOREIGN KEY ("user_id") REFERENCES "public"."users"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+CREATE INDEX "user_sessions_user_idx" ON "user_sessions" USING btree ("user_id","ended_at");

@@ -1,0 +1,58 @@
+/**
+ * The production server: Next.js behind a plain Node HTTP server, so each request's socket
+ * address is known and forwarding headers are believed only from the proxies TRUSTED_PROXY
+ * names (lib/net/forwarded.ts). `npm start` and `npm test` run it; `next dev` does not, and
+ * there every client counts as "local".
+ *
+ *   PORT=3000 HOST=0.0.0.0 TRUSTED_PROXY="10.0.0.0/8" node --import tsx server.ts
+ */
+import { createServer } from "node:http";
+import next from "next";
+import { applyForwarding, parseTrustedProxies, TrustedProxyError } from "./lib/net/forwarded";
+import { MALFORMED_PATH_BODY, wellFormedPath } from "./lib/net/request-target";
+
+const port = Number(process.env.PORT ?? 3000);
+const hostname = process.env.HOST ?? "0.0.0.0";
+
+let trusted;
+try {
+  trusted = parseTrustedProxies(process.env.TRUSTED_PROXY);
+} catch (err) {
+  if (err instanceof TrustedProxyError) {
+    console.error(err.message);
+    process.exit(2);
+  }
+  throw err;
+}
+
+const app = next({ dev: false, hostname, port, dir: import.meta.dirname });
+await app.prepare();
+const handle = app.getRequestHandler();
+
+const server = createServer((req, res) => {
+  applyForwarding(req.headers, req.socket.remoteAddress, trusted);
+  if (!wellFormedPath(req.url ?? "/")) {
+    res.writeHead(400, { "content-type": "application/json; charset=utf-8", "x-content-type-options": "nosniff" });
+    res.end(MALFORMED_PATH_BODY);
+    return;
+  }
+  handle(req, res).catch((err: unknown) => {
+    console.error("[server] request failed:", err);
+    if (!res.headersSent) res.writeHead(500, { "content-type": "text/plain" });
+    res.end("Internal error");
+  });
+});
+// Slow senders may not hold a connection open forever.
+server.requestTimeout = 120_000;
+server.headersTimeout = 30_000;
+server.listen(port, hostname, () => {
+  const proxies = trusted.entries.length ? `trusting forwarding headers from ${trusted.entries.join(", ")}` : "trusting no forwarding headers (TRUSTED_PROXY unset)";
+  console.log(`Synledger listening on http://${hostname}:${port}, ${proxies}`);
+});
+
+for (const signal of ["SIGTERM", "SIGINT"] as const) {
+  process.on(signal, () => {
+    server.close(() => process.exit(0));
+    setTimeout(() => process.exit(0), 10_000).unref();
+  });
+}
