@@ -1,5 +1,5 @@
 import { and, eq } from "drizzle-orm";
-import { demoOrganisation, demoPlantMonths } from "@/lib/demo/scenario";
+import { demoOrganisation, demoSeedMonths } from "@/lib/demo/scenario";
 import type { DemoSite } from "@/lib/demo/scenario";
 import type { Tx } from "./client";
 import { recordAudit } from "./queries/audit";
@@ -81,7 +81,8 @@ async function seedSite(tx: Tx, organisationId: string, site: DemoSite): Promise
     streamIds.set(s.id, st.id);
   }
 
-  for (const doc of demoPlantMonths(site.key)) {
+  const seeded = demoSeedMonths(site.key);
+  for (const { doc, coveredThrough } of seeded) {
     const [m] = await tx
       .insert(months)
       .values({
@@ -90,6 +91,7 @@ async function seedSite(tx: Tx, organisationId: string, site: DemoSite): Promise
         emissionsMethod: doc.method.emissions,
         factorSet: doc.method.factor_set,
         gwp: doc.method.gwp,
+        coveredThrough,
       })
       .returning();
     for (const [key, a] of Object.entries(doc.analyses)) {
@@ -106,5 +108,5 @@ async function seedSite(tx: Tx, organisationId: string, site: DemoSite): Promise
       })),
     );
   }
-  await recordAudit(tx, seedAudit(organisationId, row.id, "months.seeded", "site", row.id, { months: 12, year: 2026 }));
+  await recordAudit(tx, seedAudit(organisationId, row.id, "months.seeded", "site", row.id, { months: seeded.length, from: seeded[0]?.doc.month, to: seeded[seeded.length - 1]?.doc.month }));
 }

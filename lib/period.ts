@@ -30,3 +30,53 @@ export const yearOfMonth = (month: string): string => month.slice(0, 4);
 export function isMonthOfYear(month: unknown, year: unknown): boolean {
   return isMonthKey(month) && isYearKey(year) && yearOfMonth(month) === year;
 }
+
+/** The calendar month now, "YYYY-MM", in UTC: the ledger's months are calendar months in UTC. */
+export function currentMonthKey(now = new Date()): string {
+  return `${now.getUTCFullYear()}-${String(now.getUTCMonth() + 1).padStart(2, "0")}`;
+}
+
+export function daysInMonth(month: string): number {
+  const [y, m] = month.split("-").map(Number);
+  return new Date(Date.UTC(y, m, 0)).getUTCDate();
+}
+
+/** "2026-12" → "2026-12-31". */
+export const lastDayOf = (month: string): string => `${month}-${String(daysInMonth(month)).padStart(2, "0")}`;
+
+/** "2026-12" → "2027-01-01": the day a month's figures are complete and it can be closed. */
+export function dayAfter(month: string): string {
+  const [y, m] = month.split("-").map(Number);
+  const d = new Date(Date.UTC(y, m, 1));
+  return d.toISOString().slice(0, 10);
+}
+
+/** "2026-12" → "2026-11". */
+export function previousMonth(month: string): string {
+  const [y, m] = month.split("-").map(Number);
+  const d = new Date(Date.UTC(y, m - 2, 1));
+  return `${d.getUTCFullYear()}-${String(d.getUTCMonth() + 1).padStart(2, "0")}`;
+}
+
+export type MonthTiming =
+  /** Its last day has passed: complete, can be balanced and signed. */
+  | { kind: "ended" }
+  /** The running month: figures may come in as the days pass; `day` of `days` is today. */
+  | { kind: "in-progress"; day: number; days: number; lastDay: string; closesOn: string }
+  /** Has not begun: nothing can be entered before `opensOn`. */
+  | { kind: "future"; opensOn: string };
+
+/** Where a month stands against today (UTC). */
+export function monthTiming(month: string, now = new Date()): MonthTiming {
+  const current = currentMonthKey(now);
+  if (month < current) return { kind: "ended" };
+  if (month > current) return { kind: "future", opensOn: `${month}-01` };
+  return { kind: "in-progress", day: now.getUTCDate(), days: daysInMonth(month), lastDay: lastDayOf(month), closesOn: dayAfter(month) };
+}
+
+export const hasEnded = (month: string, now = new Date()): boolean => month < currentMonthKey(now);
+
+const DAY_LABEL = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
+
+/** "2026-12-31" → "31 December 2026" (UTC, a fixed locale: the same on every page and in every e-mail). */
+export const dayLabel = (iso: string): string => DAY_LABEL.format(new Date(`${iso}T00:00:00Z`));

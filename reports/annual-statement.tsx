@@ -1,5 +1,5 @@
 import { Document, Page, Text } from "@react-pdf/renderer";
-import type { AnnualMonthRow, AnnualStatementModel } from "./model";
+import type { AnnualMonthRow, AnnualSourceRow, AnnualStatementModel } from "./model";
 import { CautionsBlock, FlagsBlock, GasTable, IntensityBlock, MethodBlock, RevisionsBlock, SignOffBlock, UncertaintyBlock } from "./parts/blocks";
 import { Footer, RunningHead, TitleBlock } from "./parts/frame";
 import { DataTable, Section } from "./parts/primitives";
@@ -44,14 +44,27 @@ export function AnnualStatement({ model: m }: { model: AnnualStatementModel }) {
           />
         </Section>
 
-        <Section n="3" title="Emissions by gas, year">
+        <Section n="3" title="Monthly statements this statement adds up">
+          <DataTable<AnnualSourceRow>
+            columns={[
+              { title: "Month", flex: 1.4, cell: (r) => r.month },
+              { title: "Rev.", flex: 0.5, numeric: true, cell: (r) => r.revision },
+              { title: "Statement reference", flex: 3.2, cell: (r) => <Text style={{ fontFamily: "Plex Mono", fontSize: 7 }}>{r.statementRef}</Text> },
+              { title: "Frozen result, SHA-256 (first 32 digits)", flex: 3.4, cell: (r) => <Text style={{ fontFamily: "Plex Mono", fontSize: 7 }}>{r.resultSha256.slice(0, 32)}</Text> },
+            ]}
+            rows={m.sources}
+            empty="No month of the year is signed."
+          />
+        </Section>
+
+        <Section n="4" title="Emissions by gas, year">
           <GasTable rows={m.emissionsByGas} />
         </Section>
 
-        <IntensityBlock n="4" rows={m.intensities} />
-        <UncertaintyBlock n="5" rows={m.uncertainty} title="Combined uncertainty (95 % confidence)" />
-        <FlagsBlock n="6" rows={m.flags} />
-        <RevisionsBlock n="7" rows={m.revisions} />
+        <IntensityBlock n="5" rows={m.intensities} />
+        <UncertaintyBlock n="6" rows={m.uncertainty} title="Combined uncertainty (95 % confidence)" />
+        <FlagsBlock n="7" rows={m.flags} />
+        <RevisionsBlock n="8" rows={m.revisions} />
         <CautionsBlock items={m.cautions} />
         <SignOffBlock s={m.signOff} />
         <Text style={[styles.small, styles.muted, { marginTop: 6 }]}>

@@ -16,7 +16,7 @@ import {
   type WrittenNote,
 } from "./build-model-parts";
 import { DASH, absWithin, exact, fixed, monthLabel, signed, small, utcStamp } from "./format";
-import { STATEMENT_CAUTIONS, type BalanceRow, type InputRow, type MonthlyStatementModel } from "./model";
+import { STATEMENT_CAUTIONS, type BalanceRow, type EvidenceFacts, type InputRow, type MonthlyStatementModel } from "./model";
 
 export interface StreamFacts {
   key: string;
@@ -44,6 +44,8 @@ export interface MonthlyModelInput {
   preparedAt: Date | null;
   /** Earlier revisions and this one, oldest first. */
   revisions: RevisionFact[];
+  /** The frozen record (snapshot) the statement is rendered from; null before the month is sent. */
+  evidence: EvidenceFacts | null;
   signOff: {
     signer: string;
     role: string;
@@ -179,6 +181,7 @@ export function buildMonthlyModel(input: MonthlyModelInput): MonthlyStatementMod
     flags: flagRows(doc.flags, input.balanceNote),
     revisions: revisionRows(input.revisions),
     cautions: [...STATEMENT_CAUTIONS],
+    evidence: input.evidence,
     signOff: {
       signer: input.signOff.signer,
       role: input.signOff.role,

@@ -118,6 +118,16 @@ export interface SignOff {
   verifyAt: string;
 }
 
+/** The frozen record a statement was rendered from, and the files it carries. */
+export interface EvidenceFacts {
+  documentSha256: string;
+  resultSha256: string;
+  engineVersion: string;
+  frozenAt: string;
+  /** Names of the files embedded in the PDF, with what each is. */
+  files: { name: string; what: string }[];
+}
+
 export interface MonthlyStatementModel {
   header: StatementHeader;
   method: MethodSection;
@@ -135,6 +145,8 @@ export interface MonthlyStatementModel {
   flags: FlagRow[];
   revisions: RevisionRow[];
   cautions: string[];
+  /** Null in the preview of a month not yet sent for review. */
+  evidence: EvidenceFacts | null;
   signOff: SignOff;
 }
 
@@ -150,8 +162,19 @@ export interface AnnualMonthRow {
   status: string;
 }
 
+/** A monthly statement the annual statement is built from. */
+export interface AnnualSourceRow {
+  month: string;
+  revision: string;
+  statementRef: string;
+  /** SHA-256 of the month's frozen result document. */
+  resultSha256: string;
+}
+
 export interface AnnualStatementModel {
   header: StatementHeader;
+  /** The signed monthly statements (and their frozen records) the year adds up. */
+  sources: AnnualSourceRow[];
   method: MethodSection;
   /** Units of the twelve-month table's columns, printed in its header. */
   units: { ammonia: string; co2: string; co2e: string; intensity: string };

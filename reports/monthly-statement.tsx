@@ -1,6 +1,6 @@
 import { Document, Page, Text, View } from "@react-pdf/renderer";
 import type { MonthlyStatementModel } from "./model";
-import { CautionsBlock, FlagsBlock, GasTable, IntensityBlock, MethodBlock, RevisionsBlock, SignOffBlock, UncertaintyBlock } from "./parts/blocks";
+import { CautionsBlock, EvidenceBlock, FlagsBlock, GasTable, IntensityBlock, MethodBlock, RevisionsBlock, SignOffBlock, UncertaintyBlock } from "./parts/blocks";
 import { Footer, RunningHead, TitleBlock } from "./parts/frame";
 import { DataTable, QtyText, Section, Status } from "./parts/primitives";
 import { colour, styles } from "./parts/theme";
@@ -97,6 +97,7 @@ export function MonthlyStatement({ model: m }: { model: MonthlyStatementModel })
         <FlagsBlock n="8" rows={m.flags} />
         <RevisionsBlock n="9" rows={m.revisions} />
         <CautionsBlock items={m.cautions} />
+        {m.evidence ? <EvidenceBlock e={m.evidence} /> : null}
         <SignOffBlock s={m.signOff} />
       </Page>
     </Document>

@@ -62,7 +62,9 @@ export function SeriesTable({ series }: { series: YearSeries }) {
             <th scope="row" className="px-2.5 py-1 text-left">
               Year to date
             </th>
-            <td className="px-2.5 py-1 font-normal text-ink-soft">{t.months_included.length} months</td>
+            <td className="px-2.5 py-1 font-normal text-ink-soft">
+              {t.months_included.length} complete months{t.months_left_out_in_progress.length ? ` (${t.months_left_out_in_progress.join(", ")} in progress, not counted)` : ""}
+            </td>
             <td className={cell}>{fixed(t.ammonia_t, 1)}</td>
             <td className={cell}>{fixed(t.co2e_t_per_t_nh3, 3)}</td>
             <td className={cell}>{fixed(t.co2_t_per_t_nh3, 3)}</td>

@@ -25,7 +25,15 @@ export function HistoryList({ items }: { items: HistoryItem[] }) {
       {[...items].reverse().map((e) => (
         <li key={e.id} className="border-l-2 border-rule-strong pl-3">
           <p>
-            <span className="font-medium">{stateLabel(e.fromState)}</span> → <span className="font-medium">{stateLabel(e.toState)}</span>{" "}
+            {e.transition === "method-changed" ? (
+              <span className="font-medium">
+                Method set to {String(e.details.emissions)}, {String(e.details.factor_set)}, {String(e.details.gwp)}
+              </span>
+            ) : (
+              <>
+                <span className="font-medium">{stateLabel(e.fromState)}</span> → <span className="font-medium">{stateLabel(e.toState)}</span>
+              </>
+            )}{" "}
             <span className="text-ink-soft">
               by {e.actorLabel}, <span className="num">{utcStamp(e.at)}</span>
               {e.revision ? <>, revision {e.revision}</> : null}
@@ -38,6 +46,9 @@ export function HistoryList({ items }: { items: HistoryItem[] }) {
             </p>
           ) : null}
           {typeof e.details.sha256 === "string" ? <p className="num break-all text-xs text-ink-faint">SHA-256 {e.details.sha256}</p> : null}
+          {e.details.snapshot && typeof e.details.snapshot === "object" ? (
+            <p className="num break-all text-xs text-ink-faint">Frozen: document SHA-256 {String((e.details.snapshot as { documentSha256?: string }).documentSha256)}</p>
+          ) : null}
         </li>
       ))}
     </ol>

@@ -11,6 +11,8 @@ export interface Preconditions {
   outside: string[];
   method: string | null;
   factorSet: string | null;
+  /** Set while the month has not ended: why it cannot be balanced or sent yet. */
+  notEnded: string | null;
   certificate: string | null;
   balancedByActor: boolean;
 }
@@ -30,6 +32,10 @@ function hints(rule: TransitionRule, pre: Preconditions): { blocked: boolean; li
   const lines: string[] = [];
   let blocked = false;
   if (rule.name === "balance" || rule.name === "send-for-review") {
+    if (pre.notEnded) {
+      blocked = true;
+      lines.push(pre.notEnded);
+    }
     if (!pre.computes) {
       blocked = true;
       lines.push("The stored figures do not compute yet:", ...pre.computeProblems.slice(0, 4));
@@ -42,8 +48,8 @@ function hints(rule: TransitionRule, pre: Preconditions): { blocked: boolean; li
   if (rule.name === "send-for-review") {
     if (!pre.method || !pre.factorSet) {
       blocked = true;
-      lines.push("An emissions method and a factor set must be chosen for the month or the site first.");
-    } else lines.push(`Method ${pre.method}, factor set ${pre.factorSet}.`);
+      lines.push("An emissions method and a factor set must be chosen for the month first (Method of this month).");
+    } else lines.push(`Method: ${pre.method}; factor set: ${pre.factorSet}. Sending freezes them with the figures.`);
   }
   if (rule.name === "sign") {
     if (!pre.certificate) {

@@ -1,7 +1,7 @@
 import "server-only";
 import { cache } from "react";
 import { getDb } from "@/db";
-import { loadSiteYear, seriesOf } from "@/db/queries/overview";
+import { loadSiteYear, seriesOf } from "@/lib/ledger/site-year";
 
 /**
  * One load per site and year per request: the overview's site card and its attention list both

@@ -51,7 +51,8 @@ export function siteSummary(series: YearSeries): SiteSummary {
       expected += m.readings.expected;
     }
   }
-  const computed = series.months.filter((m) => m.computes);
+  // The running month is provisional: the latest closures and the drivers come from ended months.
+  const computed = series.months.filter((m) => m.computes && m.timing === "ended");
   const last = computed[computed.length - 1];
   const benchmarks = series.benchmarks.map((b) => ({ ...b, above: b.site_value !== null && compare(b.site_value, b.value) > 0 }));
   // The tightest benchmark exceeded explains "off benchmark"; looser ones the site meets add nothing.

@@ -86,7 +86,12 @@ export async function SiteYearCard({ organisationId, site, year }: { organisatio
         </div>
 
         <div>
-          <h3 className="text-xs font-semibold uppercase tracking-wide text-ink-soft">Year to date ({s.ytd.months_included.length} months)</h3>
+          <h3 className="text-xs font-semibold uppercase tracking-wide text-ink-soft">Year to date ({s.ytd.months_included.length} complete months)</h3>
+          {s.ytd.months_left_out_in_progress.length ? (
+            <p className="text-xs text-ink-soft">
+              <Status tone="pending">Provisional</Status> {s.ytd.months_left_out_in_progress.join(", ")} is in progress and not counted.
+            </p>
+          ) : null}
           <dl className="mt-1 grid grid-cols-2 gap-2 text-sm">
             <div>
               <dt className="text-xs text-ink-soft">CO2e intensity</dt>

@@ -31,7 +31,8 @@ export function YearTotals({ model, series }: { model: AnnualStatementModel; ser
         </div>
       ))}
       <p className="text-xs text-ink-soft sm:col-span-3">
-        {series.totals.months_included.length} of 12 months computed. Uncertainty at 95 %: meter errors taken as independent month to
+        {series.totals.months_included.length} of 12 months counted
+        {series.totals.months_left_out_in_progress.length ? ` (${series.totals.months_left_out_in_progress.join(", ")} in progress, left out: provisional)` : ""}. Uncertainty at 95 %: meter errors taken as independent month to
         month, factor errors as fully correlated across months.
       </p>
     </dl>

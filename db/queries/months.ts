@@ -21,18 +21,14 @@ export async function loadMonthBundle(db: Db | Tx, organisationId: string, siteI
 }
 export type MonthBundle = NonNullable<Awaited<ReturnType<typeof loadMonthBundle>>>;
 
-/** The method a month is computed with: the month's own choice, else the site's. */
-export function methodOf(bundle: Pick<MonthBundle, "site" | "month">) {
-  return {
-    emissions: bundle.month?.emissionsMethod ?? bundle.site.emissionsMethod,
-    factor_set: bundle.month?.factorSet ?? bundle.site.factorSet,
-    gwp: bundle.month?.gwp ?? bundle.site.gwp,
-  };
-}
-
 /** Locks the month row for the rest of the transaction (creating it when new). */
-export async function lockMonth(tx: Tx, siteId: string, period: string) {
-  await tx.insert(months).values({ siteId, period, version: 0 }).onConflictDoNothing({ target: [months.siteId, months.period] });
+export async function lockMonth(tx: Tx, site: { id: string; emissionsMethod: string; factorSet: string; gwp: string }, period: string) {
+  const siteId = site.id;
+  // A new month takes the site's method, factor set and GWP set; from then on they are the month's own.
+  await tx
+    .insert(months)
+    .values({ siteId, period, version: 0, emissionsMethod: site.emissionsMethod, factorSet: site.factorSet, gwp: site.gwp })
+    .onConflictDoNothing({ target: [months.siteId, months.period] });
   const [row] = await tx
     .select()
     .from(months)

@@ -1,7 +1,7 @@
 import "server-only";
-import { and, asc, count, eq, isNull, sql } from "drizzle-orm";
+import { and, asc, count, eq, inArray, isNull, sql } from "drizzle-orm";
 import type { Db, Tx } from "../client";
-import { sites, streams } from "../schema";
+import { months, sites, streams } from "../schema";
 import type { SiteValues } from "@/lib/validations/site";
 
 /** Every site of the organisation, archived ones too, with how many active streams each has. */
@@ -69,4 +69,39 @@ export function siteSnapshot(s: typeof sites.$inferSelect) {
     gwp: s.gwp,
     archived: s.archivedAt !== null,
   };
+}
+
+/** The site's months by whether a change to its set-up still reaches them: Open and Balanced do, frozen ones never. */
+export async function monthsReachedBySetup(db: Db | Tx, siteId: string): Promise<{ reached: string[]; frozen: string[] }> {
+  const rows = await db.select({ period: months.period, state: months.state }).from(months).where(eq(months.siteId, siteId)).orderBy(asc(months.period));
+  const frozen = (s: string) => s === "in_review" || s === "signed" || s === "submitted";
+  return { reached: rows.filter((r) => !frozen(r.state)).map((r) => r.period), frozen: rows.filter((r) => frozen(r.state)).map((r) => r.period) };
+}
+
+/**
+ * A change of the site's default method, factor set or GWP set reaches the months not yet sent
+ * for review that still follow the old default (a month whose officer chose otherwise keeps its
+ * choice); frozen months never change. Returns the months changed.
+ */
+export async function followSiteDefaults(
+  tx: Tx,
+  siteId: string,
+  before: { emissionsMethod: string; factorSet: string; gwp: string },
+  after: { emissionsMethod: string; factorSet: string; gwp: string },
+): Promise<string[]> {
+  const changed = new Set<string>();
+  for (const [col, key] of [
+    [months.emissionsMethod, "emissionsMethod"],
+    [months.factorSet, "factorSet"],
+    [months.gwp, "gwp"],
+  ] as const) {
+    if (before[key] === after[key]) continue;
+    const rows = await tx
+      .update(months)
+      .set({ [key]: after[key], version: sql`${months.version} + 1`, updatedAt: new Date() })
+      .where(and(eq(months.siteId, siteId), inArray(months.state, ["open", "balanced"]), eq(col, before[key])))
+      .returning({ period: months.period });
+    for (const r of rows) changed.add(r.period);
+  }
+  return [...changed].sort();
 }

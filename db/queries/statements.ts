@@ -14,6 +14,7 @@ const statementColumns = {
   kind: statements.kind,
   period: statements.period,
   monthId: statements.monthId,
+  snapshotId: statements.snapshotId,
   revision: statements.revision,
   sha256: statements.sha256,
   signerUserId: statements.signerUserId,

@@ -5,3 +5,4 @@ export * from "./months";
 export * from "./audit";
 export * from "./capture";
 export * from "./statements";
+export * from "./snapshots";

@@ -17,9 +17,12 @@ export const months = pgTable(
     state: monthStateEnum("state").notNull().default("open"),
     revision: integer("revision").notNull().default(1),
     version: integer("version").notNull().default(1),
-    emissionsMethod: text("emissions_method"),
-    factorSet: text("factor_set"),
-    gwp: text("gwp"),
+    /** The month's own method, factor set and GWP set: set from the site's defaults when the month is created. */
+    emissionsMethod: text("emissions_method").notNull(),
+    factorSet: text("factor_set").notNull(),
+    gwp: text("gwp").notNull(),
+    /** The last day the month's figures cover, when known (daily imports); null: not stated. */
+    coveredThrough: date("covered_through"),
     /** Written reason when a balance is closed outside tolerance. */
     balanceNote: text("balance_note"),
     updatedBy: uuid("updated_by").references(() => users.id, { onDelete: "set null" }),

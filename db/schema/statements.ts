@@ -15,6 +15,7 @@ import {
   uuid,
 } from "drizzle-orm/pg-core";
 import { months } from "./months";
+import { monthSnapshots } from "./snapshots";
 import { organisations, users } from "./organisations";
 import { sites } from "./sites";
 
@@ -79,6 +80,8 @@ export const statements = pgTable(
     /** "YYYY-MM" for monthly, "YYYY" for annual statements. */
     period: text("period").notNull(),
     monthId: uuid("month_id").references(() => months.id, { onDelete: "restrict" }),
+    /** The frozen month the monthly statement was rendered from (null for annual statements and those signed before snapshots). */
+    snapshotId: uuid("snapshot_id").references(() => monthSnapshots.id, { onDelete: "restrict" }),
     revision: integer("revision").notNull(),
     pdf: bytea("pdf").notNull(),
     sha256: text("sha256").notNull(),

@@ -79,11 +79,51 @@ export const openApiDocument = {
       },
     },
     "/api/v1/sites/{siteId}/months/{month}/result": {
-      get: { summary: "Engine result of the stored figures", parameters: month, responses: responses(json({ type: "object", properties: { state: ref("MonthState"), version: { type: "integer" }, result: ref("Result") } }), ["400", "401", "403", "404", "422"]) },
+      get: {
+        summary: "Engine result: the frozen one of a month In review, Signed or Submitted (with its digests), else computed from the stored figures",
+        parameters: month,
+        responses: responses(
+          json({
+            type: "object",
+            properties: {
+              state: ref("MonthState"),
+              revision: { type: "integer" },
+              version: { type: "integer" },
+              frozen: {
+                type: ["object", "null"],
+                properties: { snapshot_id: { type: "string", format: "uuid" }, frozen_at: { type: "string", format: "date-time" }, engine_version: { type: "string" }, document_sha256: { type: "string" }, result_sha256: { type: "string" } },
+              },
+              result: ref("Result"),
+            },
+          }),
+          ["400", "401", "403", "404", "422"],
+        ),
+      },
+    },
+    "/api/v1/sites/{siteId}/months/{month}/method": {
+      put: {
+        summary: "Choose the month's emissions method, factor set and GWP set (environmental officer or administrator; while Open or Balanced)",
+        parameters: month,
+        requestBody: body({
+          type: "object",
+          required: ["emissions", "factor_set", "gwp", "expectedVersion"],
+          additionalProperties: false,
+          properties: {
+            emissions: { type: "string", enum: ["carbon-mass-balance", "fuel-calculation", "measured", "default-factor"] },
+            factor_set: { type: "string", enum: ["ipcc-2006", "us-40cfr98", "eu-mrr"] },
+            gwp: { type: "string", enum: ["AR4", "AR5", "AR6"] },
+            expectedVersion: { type: "integer", minimum: 0 },
+          },
+        }),
+        responses: responses(
+          json({ type: "object", properties: { month: { type: "string" }, version: { type: "integer" }, changed: { type: "boolean" }, method: { type: "object" } } }),
+          ["400", "401", "403", "404", "409", "413"],
+        ),
+      },
     },
     "/api/v1/sites/{siteId}/months/{month}/export": {
       get: {
-        summary: "The month as a plant-month file (download named synledger-<site code>-<YYYY-MM>.plant-month.json)",
+        summary: "The month as a plant-month file (download named synledger-<site code>-<YYYY-MM>.plant-month.json); a frozen month gives its frozen document in canonical JSON, its SHA-256 in X-Synledger-Document-Sha256",
         parameters: month,
         responses: responses({ description: "the file", headers: { "Content-Disposition": { schema: { type: "string" } } }, content: { "application/json": { schema: ref("PlantMonth") } } }, ["400", "401", "403", "404"]),
       },

@@ -3,7 +3,7 @@ import { getDb } from "@/db";
 import { loadMonthBundle, type MonthBundle } from "@/db/queries/months";
 import { findSite } from "@/db/queries/sites";
 import { HttpError, notFound, quoted } from "@/lib/auth/errors";
-import { FIRST_YEAR, LAST_YEAR, isMonthKey } from "@/lib/period";
+import { FIRST_YEAR, LAST_YEAR, isMonthKey, monthTiming } from "@/lib/period";
 import type { ApiCaller } from "./actor";
 
 /** The `{month}` path segment: a calendar month written YYYY-MM. */
@@ -37,6 +37,13 @@ export function analysisView(a: MonthBundle["analyses"][number]) {
   return { key: a.key, components: a.components, sampledOn: a.sampledOn, laboratory: a.laboratory, note: a.note };
 }
 
+function timingView(period: string) {
+  const t = monthTiming(period);
+  if (t.kind === "in-progress") return { kind: t.kind, day: t.day, days: t.days, last_day: t.lastDay, closes_on: t.closesOn };
+  if (t.kind === "future") return { kind: t.kind, opens_on: t.opensOn };
+  return { kind: t.kind };
+}
+
 /** A site-month as the API shows it; `version` is what the next save must name. */
 export function monthView(b: MonthBundle, period: string) {
   const keyOf = new Map(b.streams.map((s) => [s.id, s.key]));
@@ -44,6 +51,10 @@ export function monthView(b: MonthBundle, period: string) {
     site: { id: b.site.id, name: b.site.name, code: b.site.code },
     month: period,
     state: b.month?.state ?? "open",
+    /** ended, in-progress (figures may come in; cannot be closed before `closes_on`) or future. */
+    timing: timingView(period),
+    covered_through: b.month?.coveredThrough ?? null,
+    method: b.month ? { emissions: b.month.emissionsMethod, factor_set: b.month.factorSet, gwp: b.month.gwp } : { emissions: b.site.emissionsMethod, factor_set: b.site.factorSet, gwp: b.site.gwp },
     revision: b.month?.revision ?? 1,
     version: b.month?.version ?? 0,
     updatedAt: b.month?.updatedAt ?? null,

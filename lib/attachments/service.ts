@@ -75,7 +75,7 @@ export async function uploadAttachment(db: Db, actor: Actor, siteId: string, per
   const fileName = input.name.replace(/[\u0000-\u001f\u007f/\\]/g, "_").slice(0, 200);
   const sha256 = createHash("sha256").update(input.bytes).digest("hex");
   return db.transaction(async (tx) => {
-    const month = await lockMonth(tx, site.id, period);
+    const month = await lockMonth(tx, site, period);
     if (FROZEN.includes(month.state)) throw new HttpError(409, "month_read_only", `${period} is ${STATE_WORDS[month.state]}: its evidence can no longer change.`);
     let streamId: string | null = null;
     if (input.stream) {

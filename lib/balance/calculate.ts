@@ -40,6 +40,8 @@ export interface CalculationResult {
   reconciliation: PlantReconciliation | null;
   emissions: EmissionsPart;
   flags: Flag[];
+  /** The closure tolerance the flags were judged against, % (the site's). */
+  tolerancePct: Dec;
 }
 
 export { CalculationInputError } from "./errors";
@@ -105,5 +107,6 @@ export function calculate(doc: PlantMonth, options: CalculateOptions = {}): Calc
     ...partial,
     emissions,
     flags: [...analysisFlags, ...balanceFlags(flows, balances, options), ...(reconciliation?.flags ?? []), ...emissions.flags],
+    tolerancePct: options.closureTolerancePct ?? dec(2),
   };
 }

@@ -1,5 +1,6 @@
 // CLI: npm run balance -- FILE.json [--json] [--tolerance PCT] [--no-reconcile]
 //      npm run balance -- --year FILE1.json FILE2.json … [--json]
+//      npm run balance -- --check-statement FILE.pdf   (recomputes a signed statement from the documents it carries)
 // Invalid input: exit 2, nothing on stdout, the file, the JSON path and the reason on stderr.
 // Year mode reads every file before printing anything, so one bad month never yields a partial total.
 import { readFileSync, statSync } from "node:fs";
@@ -25,7 +26,32 @@ export class UsageError extends Error {}
 export const USAGE = [
   "usage: npm run balance -- FILE.json [--json] [--tolerance PCT] [--no-reconcile]",
   "       npm run balance -- --year FILE1.json FILE2.json ... [--json] [--tolerance PCT] [--no-reconcile]",
+  "       npm run balance -- --check-statement FILE.pdf",
 ].join("\n");
+
+/** Statement PDFs are larger than plant-month files (fonts, the embedded documents); 20 MiB as the verify page allows. */
+const MAX_STATEMENT_BYTES = 20 * 1024 * 1024;
+
+/**
+ * --check-statement FILE.pdf: exit 0 when every figure matches and the signature covers the
+ * whole file, 1 when not (each difference listed), 2 for a file that cannot be checked.
+ */
+export async function runCheckStatement(argv: string[], read: (p: string) => Buffer = (p) => readFileSync(p)): Promise<CliOutcome> {
+  const files = argv.filter((a) => a !== "--check-statement");
+  if (files.length !== 1 || files[0].startsWith("--")) return fail(`--check-statement needs exactly one PDF file\n${USAGE}\n`);
+  const file = files[0];
+  let pdf: Buffer;
+  try {
+    const size = statSync(file).size;
+    if (size > MAX_STATEMENT_BYTES) return fail(`${file}: ${size} bytes, more than the ${MAX_STATEMENT_BYTES} bytes a statement may take\n`);
+    pdf = read(file);
+  } catch (e) {
+    return fail(`${file}: cannot read file (${(e as Error).message})\n`);
+  }
+  // Loaded only here: the engine itself does not depend on the signing code.
+  const { checkStatement } = await import("../signing/check-statement");
+  return checkStatement(pdf, file);
+}
 
 export function parseArgs(argv: string[]): CliArgs {
   const args: CliArgs = { mode: "month", files: [], json: false, tolerancePct: null, reconcile: true };
@@ -115,8 +141,10 @@ export function runCli(argv: string[], read: Read = readBounded): CliOutcome {
 
 const isMain = process.argv[1] && /cli\.ts$/.test(process.argv[1]);
 if (isMain) {
-  const { code, stdout, stderr } = runCli(process.argv.slice(2));
-  if (stdout) process.stdout.write(stdout);
-  if (stderr) process.stderr.write(stderr);
-  process.exitCode = code;
+  const argv = process.argv.slice(2);
+  void (argv.includes("--check-statement") ? runCheckStatement(argv) : Promise.resolve(runCli(argv))).then(({ code, stdout, stderr }) => {
+    if (stdout) process.stdout.write(stdout);
+    if (stderr) process.stderr.write(stderr);
+    process.exitCode = code;
+  });
 }

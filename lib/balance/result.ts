@@ -10,6 +10,7 @@ import { CalculationInputError } from "./errors";
 import { emissionsDocumentPart } from "./result-emissions";
 import type { PlantMonth } from "./schema";
 import type { AnalysisFigures, EmissionsInput, Flag } from "./types";
+import { ENGINE_VERSION } from "./version";
 
 export const RESULT_FORMAT = "synledger.result/1";
 
@@ -86,8 +87,11 @@ export function toResultDocument(r: CalculationResult) {
   const rec = r.reconciliation;
   return {
     format: RESULT_FORMAT,
+    /** Which engine computed it (lib/balance/version.ts). */
+    engine: ENGINE_VERSION,
     site: r.site,
     month: r.month,
+    closure_tolerance_pct: num(r.tolerancePct),
     streams: r.streams.map((s) => ({
       id: s.id, kind: s.kind, unit: s.unit, quantity: num(s.quantity),
       kmol: num(s.kmol), t: num(s.t), carbon_kmol: num(s.carbon_kmol), carbon_t: num(s.carbon_t),

@@ -16,6 +16,46 @@ export function demoPlantMonths(siteKey: SiteKey, variant?: string): PlantMonth[
   return DAYS_2026.map((days, m) => buildPlantMonth(site, { days, month: monthId(m), ...(variant ? { variant } : {}) }));
 }
 
+export interface DemoSeedMonth {
+  doc: PlantMonth;
+  /** The last day the figures cover (the running month: yesterday), or null for a whole month. */
+  coveredThrough: string | null;
+}
+
+const daysOf = (month: string) => new Date(Date.UTC(Number(month.slice(0, 4)), Number(month.slice(5, 7)), 0)).getUTCDate();
+
+/**
+ * The months the demo seed stores, as on the day it runs: every complete month from January
+ * 2026 to the month before `now`, and the running month with only the days that have passed
+ * (none on its first day). Deterministic for a given day.
+ */
+export function demoSeedMonths(siteKey: SiteKey, now = new Date()): DemoSeedMonth[] {
+  const site = demoSite(siteKey);
+  const current = `${now.getUTCFullYear()}-${String(now.getUTCMonth() + 1).padStart(2, "0")}`;
+  const out: DemoSeedMonth[] = [];
+  for (let i = 0; i < 60; i++) {
+    const d = new Date(Date.UTC(DEMO_YEAR, i, 1));
+    const month = `${d.getUTCFullYear()}-${String(d.getUTCMonth() + 1).padStart(2, "0")}`;
+    if (month > current) break;
+    if (month < current) {
+      out.push({ doc: buildPlantMonth(site, { days: daysOf(month), month }), coveredThrough: null });
+      continue;
+    }
+    const elapsed = now.getUTCDate() - 1;
+    if (elapsed > 0) out.push({ doc: buildPlantMonth(site, { days: elapsed, month, variant: "running" }), coveredThrough: `${month}-${String(elapsed).padStart(2, "0")}` });
+  }
+  return out;
+}
+
+/** Twelve whole months of any calendar year for a site, for tests that need a year that has ended. */
+export function demoYearMonths(siteKey: SiteKey, year: number): PlantMonth[] {
+  const site = demoSite(siteKey);
+  return Array.from({ length: 12 }, (_, m) => {
+    const month = `${year}-${String(m + 1).padStart(2, "0")}`;
+    return buildPlantMonth(site, { days: daysOf(month), month, variant: `year-${year}` });
+  });
+}
+
 /** One document per day of 2026 (dated with its month), for the benchmark. */
 export function demoPlantDays(siteKey: SiteKey): PlantMonth[] {
   const site = demoSite(siteKey);

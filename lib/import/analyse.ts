@@ -43,7 +43,7 @@ export function issuePath(i: ImportIssue): string {
 }
 
 export interface Analysis {
-  site: { id: string; name: string };
+  site: { id: string; name: string; emissionsMethod: string; factorSet: string; gwp: string };
   sha256: string;
   delimiter: string;
   headers: string[];
@@ -89,5 +89,5 @@ export async function analyseImport(db: Db, organisationId: string, siteId: stri
     };
   });
   const previous = await firstBatchOfFile(db, site.id, sha256);
-  return { site: { id: site.id, name: site.name }, sha256, delimiter: table.delimiter, headers: table.headers, result, months, previous };
+  return { site: { id: site.id, name: site.name, emissionsMethod: site.emissionsMethod, factorSet: site.factorSet, gwp: site.gwp }, sha256, delimiter: table.delimiter, headers: table.headers, result, months, previous };
 }

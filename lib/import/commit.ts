@@ -69,7 +69,7 @@ export async function commitImport(db: Db, actor: Actor, siteId: string, request
     if (previous && !request.confirmReplace) throw alreadyImported(previous);
     // Lock every month first, in order, so the read-only check holds until the commit ends.
     const locked = [];
-    for (const plan of plans) locked.push(await lockMonth(tx, a.site.id, plan.month));
+    for (const plan of plans) locked.push(await lockMonth(tx, a.site, plan.month));
     const frozen = locked.filter((m) => (READ_ONLY_STATES as readonly string[]).includes(m.state));
     if (frozen.length) {
       throw new HttpError(
@@ -86,7 +86,7 @@ export async function commitImport(db: Db, actor: Actor, siteId: string, request
         expectedVersion: locked[i].version,
         readings: plan.readings.map((r) => ({ stream: r.stream, quantity: r.quantity, unit: r.unit as Unit, source: "meter" })),
         analyses: plan.analyses.map((x) => ({ key: x.key, components: x.components, ...(x.sampledOn ? { sampledOn: x.sampledOn } : {}) })),
-      });
+      }, plan.lastDay ? { coveredThrough: plan.lastDay } : {});
       results.push({ month: plan.month, readings: plan.readings.length, analyses: plan.analyses.length, changed: saved.changed, version: saved.version });
       await emit({ phase: "commit", done: i + 1, total: plans.length });
     }

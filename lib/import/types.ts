@@ -51,6 +51,8 @@ export interface MonthPlan {
   month: string;
   readings: MonthReading[];
   analyses: MonthAnalysis[];
+  /** Daily files: the latest day with a value (what the month's figures cover); null for monthly files. */
+  lastDay: string | null;
 }
 
 export interface ValidationResult {

@@ -172,8 +172,12 @@ export class ImportValidator {
     return true;
   }
 
+  /** The latest day with a value, per month (daily files): what the month's figures cover. */
+  private lastDays = new Map<string, string>();
+
   private add(row: number, when: { month: string; day: string | null }, stream: ImportStream, value: string, unit: string, unitColumn: string) {
     if (!this.markSeen(row, when, stream)) return;
+    if (when.day && when.day > (this.lastDays.get(when.month) ?? "")) this.lastDays.set(when.month, when.day);
     let month = this.sums.get(when.month);
     if (!month) this.sums.set(when.month, (month = new Map()));
     const s = month.get(stream.key);
@@ -245,7 +249,7 @@ export class ImportValidator {
           if (r.values < days) this.warnings.push({ month, subject: r.stream, message: `${r.values} of ${days} days in the file: the month's total covers only those days` });
         }
       }
-      return { month, readings, analyses: [...(this.analyses.get(month)?.values() ?? [])] };
+      return { month, readings, analyses: [...(this.analyses.get(month)?.values() ?? [])], lastDay: daily ? (this.lastDays.get(month) ?? null) : null };
     });
     return { issues: this.issues, warnings: this.warnings, months, rowCount: this.rowCount, valueCount: this.valueCount };
   }

@@ -11,16 +11,15 @@ import { UNITS_BY_KIND } from "@/lib/balance/schema";
 import type { StreamKind } from "@/lib/balance/types";
 import type { Unit } from "@/lib/balance/units";
 import { HttpError, notFound, quoted, type IssueDetail } from "@/lib/auth/errors";
-import { isMonthKey } from "@/lib/period";
+import { currentMonthKey, isMonthKey } from "@/lib/period";
+import { actAsLifecycle } from "@/lib/lifecycle/db-flag";
 import { monthFiguresSchema, type MonthFiguresInput } from "@/lib/validations/month";
 
 /** Months in these states are frozen: only the life cycle (reopen) may change them. */
 export const READ_ONLY_STATES = ["in_review", "signed", "submitted"] as const;
 
 /** The calendar month now, "YYYY-MM" (UTC): figures of later months cannot exist yet. */
-export function currentPeriod(now = new Date()): string {
-  return `${now.getUTCFullYear()}-${String(now.getUTCMonth() + 1).padStart(2, "0")}`;
-}
+export const currentPeriod = currentMonthKey;
 
 export interface Editor {
   organisationId: string;
@@ -48,6 +47,8 @@ export interface SaveOptions {
    * each other. `expectedVersion` of the input is then ignored.
    */
   againstCurrentVersion?: boolean;
+  /** The last day the month's figures cover, when the sender knows it (daily imports); left as it was when absent. */
+  coveredThrough?: string | null;
 }
 
 export const archivedSiteRefusal = (name: string) =>
@@ -63,7 +64,7 @@ export async function saveMonthFigures(db: Db, editor: Editor, siteId: string, p
     const site = await findSite(tx, editor.organisationId, siteId);
     if (!site) throw notFound("The site");
     if (site.archivedAt) throw archivedSiteRefusal(site.name);
-    const month = await lockMonth(tx, site.id, period);
+    const month = await lockMonth(tx, site, period);
     if ((READ_ONLY_STATES as readonly string[]).includes(month.state)) {
       throw new HttpError(409, "month_read_only", `${period} is ${month.state.replace("_", " ")}: its figures can no longer be edited.`);
     }
@@ -169,9 +170,12 @@ export async function saveMonthFigures(db: Db, editor: Editor, siteId: string, p
     }
     // Editing figures of a balanced month sends it back to Open: the balance must be closed again.
     const state = month.state === "balanced" && changed > 0 ? "open" : month.state;
+    // Sending a balanced month back to Open is a life-cycle rule (edited figures must be balanced again).
+    if (state !== month.state) await actAsLifecycle(tx);
+    const coveredThrough = options.coveredThrough !== undefined ? options.coveredThrough : month.coveredThrough;
     await tx
       .update(months)
-      .set({ version, state, balanceNote: input.balanceNote ?? month.balanceNote, updatedBy: editor.userId, updatedAt: new Date() })
+      .set({ version, state, coveredThrough, balanceNote: input.balanceNote ?? month.balanceNote, updatedBy: editor.userId, updatedAt: new Date() })
       .where(eq(months.id, month.id));
     if (state !== month.state) {
       await recordAudit(tx, {

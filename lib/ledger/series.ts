@@ -5,7 +5,8 @@
  */
 import { num } from "@/lib/balance/decimal";
 import type { YearResult } from "@/lib/emissions/year";
-import { monthsOfYear, yearBenchmarks, yearTheoreticalMinimum, type MonthRun, type MonthStateName, type YearBenchmark } from "./year";
+import { hasEnded, monthTiming } from "@/lib/period";
+import { endedRuns, monthsOfYear, yearBenchmarks, yearTheoreticalMinimum, type MonthRun, type MonthStateName, type YearBenchmark } from "./year";
 
 export const SERIES_FORMAT = "synledger.year-series/1";
 
@@ -19,6 +20,12 @@ export interface SeriesMonth {
   month: string;
   /** null: nobody has started the month. */
   state: MonthStateName | null;
+  /** ended: its last day has passed; in-progress: the running month (left out of totals); future: not begun. */
+  timing: "ended" | "in-progress" | "future";
+  /** True when the figures come from the revision's frozen snapshot. */
+  frozen: boolean;
+  /** The last day the figures cover, when stated. */
+  covered_through: string | null;
   revision: number | null;
   computes: boolean;
   method: { emissions: string; factor_set: string; gwp: string } | null;
@@ -51,6 +58,8 @@ export interface YearSeries {
   suspect_meters: { stream: string; name: string; meter: string | null; months: string[] }[];
   totals: {
     months_included: string[];
+    /** Months with figures left out of the totals because they have not ended (the running month). */
+    months_left_out_in_progress: string[];
     ammonia_t: string | null;
     co2_t: string | null;
     co2e_t: string | null;
@@ -78,13 +87,16 @@ function namedMeters(r: MonthRun["result"]): string[] {
   return suspects.filter((s) => s.test_statistic!.minus(top).abs().lte(top.times("1e-20"))).map((s) => s.id);
 }
 
-function seriesMonth(period: string, run: MonthRun | undefined): SeriesMonth {
+function seriesMonth(period: string, run: MonthRun | undefined, now: Date): SeriesMonth {
   const r = run?.result ?? null;
   const d = r?.emissions.detail;
   const method = run ? ((run.document.method as SeriesMonth["method"]) ?? null) : null;
   return {
     month: period,
     state: run?.state ?? null,
+    timing: monthTiming(period, now).kind,
+    frozen: run?.frozen ?? false,
+    covered_through: run?.coveredThrough ?? null,
     revision: run?.revision ?? null,
     computes: r !== null,
     method,
@@ -113,12 +125,16 @@ export interface SeriesInput {
   year: string;
   runs: readonly MonthRun[];
   streams: readonly StreamLabel[];
+  /** Totals of the ended months only (rollUpRuns). */
   rollUp: YearResult | null;
+  now?: Date;
 }
 
 export function buildSeries(input: SeriesInput): YearSeries {
+  const now = input.now ?? new Date();
   const byPeriod = new Map(input.runs.map((r) => [r.period, r]));
-  const months = monthsOfYear(input.year).map((p) => seriesMonth(p, byPeriod.get(p)));
+  const months = monthsOfYear(input.year).map((p) => seriesMonth(p, byPeriod.get(p), now));
+  const ended = endedRuns(input.runs, now);
   const suspects = new Map<string, string[]>();
   for (const m of months) for (const s of m.suspect_meters) suspects.set(s, [...(suspects.get(s) ?? []), m.month]);
   const label = new Map(input.streams.map((s) => [s.key, s]));
@@ -131,13 +147,14 @@ export function buildSeries(input: SeriesInput): YearSeries {
     tolerance_pct: input.site.closureTolerancePct,
     // Make-up gas for ammonia synthesis is held near 3 H2 : 1 N2 (stoichiometry; common practice).
     h2_n2_target: "3",
-    benchmarks: yearBenchmarks(input.runs, y),
+    benchmarks: yearBenchmarks(ended, y),
     months,
     suspect_meters: [...suspects]
       .map(([stream, ms]) => ({ stream, name: label.get(stream)?.name ?? stream, meter: label.get(stream)?.meterTag ?? null, months: ms }))
       .sort((a, b) => b.months.length - a.months.length || a.stream.localeCompare(b.stream)),
     totals: {
       months_included: y?.months_included ?? [],
+      months_left_out_in_progress: input.runs.filter((r) => !hasEnded(r.period, now)).map((r) => r.period),
       ammonia_t: num(nh3),
       co2_t: num(y?.emissions.co2_t),
       co2e_t: num(y?.emissions.co2e_t),
@@ -145,7 +162,7 @@ export function buildSeries(input: SeriesInput): YearSeries {
       co2e_t_per_t_nh3: num(y?.intensity.co2e_t_per_t_nh3),
       co2_t_per_t_nh3: y && nh3?.gt(0) ? num(y.emissions.co2_t.div(nh3)) : null,
       gj_lhv_per_t_nh3: num(y?.intensity.gj_lhv_per_t_nh3),
-      theoretical_min_gj_lhv_per_t_nh3: yearTheoreticalMinimum(input.runs),
+      theoretical_min_gj_lhv_per_t_nh3: yearTheoreticalMinimum(ended),
       u95_co2_t: num(y?.uncertainty.co2.u95_t),
       u95_co2_pct: num(y?.uncertainty.co2.u95_pct),
     },

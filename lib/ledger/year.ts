@@ -9,6 +9,7 @@ import { Dec, ZERO, num } from "@/lib/balance/decimal";
 import { parsePlantMonth, type InputIssue } from "@/lib/balance/schema";
 import { BUILT_IN_FACTOR_SETS } from "@/lib/emissions/registry";
 import { rollUpYear, type YearResult } from "@/lib/emissions/year";
+import { hasEnded } from "@/lib/period";
 
 export type MonthStateName = "open" | "balanced" | "in_review" | "signed" | "submitted";
 
@@ -25,18 +26,28 @@ export interface MonthRun {
   issues: InputIssue[];
   /** Active streams with a reading this month, against active streams of the site. */
   readings: { present: number; expected: number };
+  /** True when the figures come from the revision's snapshot (In review, Signed, Submitted). */
+  frozen: boolean;
+  /** The last day the figures cover, when stated (daily imports). */
+  coveredThrough: string | null;
 }
-
-export const YEAR_KEY = /^\d{4}$/;
 
 /** The twelve month keys of a year, January first. */
 export function monthsOfYear(year: string): string[] {
   return Array.from({ length: 12 }, (_, i) => `${year}-${String(i + 1).padStart(2, "0")}`);
 }
 
-/** Totals of the months that compute, or null when none does (a year with nothing to add). */
-export function rollUpRuns(runs: readonly MonthRun[]): YearResult | null {
-  const ok = runs.filter((r): r is MonthRun & { result: CalculationResult } => r.result !== null);
+/**
+ * The months a year-to-date figure may count: those whose last day has passed. The running
+ * month is left out of every total (and the pages say so), never counted as complete.
+ */
+export function endedRuns<R extends Pick<MonthRun, "period">>(runs: readonly R[], now = new Date()): R[] {
+  return runs.filter((r) => hasEnded(r.period, now));
+}
+
+/** Totals of the ended months that compute, or null when none does (a year with nothing to add). */
+export function rollUpRuns(runs: readonly MonthRun[], now = new Date()): YearResult | null {
+  const ok = endedRuns(runs, now).filter((r): r is MonthRun & { result: CalculationResult } => r.result !== null);
   if (ok.length === 0) return null;
   return rollUpYear(ok.map((r) => ({ month: r.period, input: r.result.emissions.input, result: r.result.emissions.detail })));
 }
@@ -159,8 +170,12 @@ export function yearBySource(runs: readonly MonthRun[]) {
   return [...rows.values()].map((r) => ({ id: r.id, kind: r.kind, co2_t: num(r.co2_t)!, ch4_t: num(r.ch4_t)!, n2o_t: num(r.n2o_t)!, co2e_t: num(r.co2e_t)! }));
 }
 
-/** Months that may go into an annual statement: every month that exists is Signed or Submitted. */
-export function annualReadiness(runs: readonly Pick<MonthRun, "period" | "state">[]): { ready: boolean; waiting: string[] } {
-  const waiting = runs.filter((r) => r.state !== "signed" && r.state !== "submitted").map((r) => r.period);
-  return { ready: runs.length > 0 && waiting.length === 0, waiting };
+/**
+ * Whether the annual statement may be signed: all twelve months of the year exist and are
+ * Signed or Submitted. `waiting` names the others (a month nobody started included).
+ */
+export function annualReadiness(year: string, runs: readonly Pick<MonthRun, "period" | "state">[]): { ready: boolean; waiting: string[] } {
+  const stateOf = new Map(runs.map((r) => [r.period, r.state]));
+  const waiting = monthsOfYear(year).filter((m) => stateOf.get(m) !== "signed" && stateOf.get(m) !== "submitted");
+  return { ready: waiting.length === 0, waiting };
 }

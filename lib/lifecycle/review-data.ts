@@ -8,8 +8,18 @@ import { appUrl } from "@/lib/mail/transport";
 import { buildMonthlyModel } from "@/reports/build-model";
 import { signed } from "@/reports/format";
 import { balanceNoteOf, lastOf, monthEvents, monthStatements, reopenReason, revisionFacts } from "./history";
-import { runStoredMonth } from "./month-engine";
-import { streamFacts } from "./sign";
+import { runStoredMonth, streamFacts } from "@/lib/ledger/month-runs";
+import { emissionsMethodLabel, factorSetLabel } from "@/lib/ledger/method-labels";
+import { dayLabel as day, monthTiming } from "@/lib/period";
+import { evidenceOf, frozenFiles } from "./sign";
+
+/** Why a month cannot be balanced or sent yet, or null once its last day has passed. */
+function notEndedReason(period: string): string | null {
+  const t = monthTiming(period);
+  if (t.kind === "in-progress") return `The month is in progress: it can be balanced and sent from ${day(t.closesOn)}, once its last day (${day(t.lastDay)}) has passed.`;
+  if (t.kind === "future") return `The month has not begun (it opens on ${day(t.opensOn)}).`;
+  return null;
+}
 
 /**
  * Everything the review page shows of one site-month, read in one place: the engine run of the
@@ -29,16 +39,19 @@ export async function loadReview(db: Db, actor: { organisationId: string; organi
     activeCertificateWithKey(db, actor.organisationId),
   ]);
   const prepared = lastOf(events, "send-for-review", month.revision);
+  const frozen = run?.ok ? run.frozen : null;
+  const siteFacts = frozen?.context.site ?? { name: site.name, code: site.code, meteringReference: site.meteringReference, closureTolerancePct: site.closureTolerancePct };
   const model =
     run?.ok &&
     buildMonthlyModel({
       organisation: actor.organisationName,
-      site: { name: site.name, code: site.code, meteringReference: site.meteringReference, closureTolerancePct: site.closureTolerancePct },
+      site: siteFacts,
       period,
       revision: month.revision,
       statementRef: "assigned at signing",
       result: run.doc,
-      streams: streamFacts(run.bundle),
+      streams: frozen?.context.streams ?? streamFacts(run.bundle),
+      evidence: frozen ? evidenceOf(frozen, frozenFiles({ documentText: "", resultText: "" }, siteFacts.code, period, month.revision)) : null,
       balanceNote: balanceNoteOf(events, month.revision, month.balanceNote),
       preparedBy: prepared ? `${prepared.actorLabel}, environmental officer` : "not sent for sign-off yet",
       preparedAt: prepared?.at ?? null,
@@ -63,8 +76,9 @@ export async function loadReview(db: Db, actor: { organisationId: string; organi
       computes: !!run?.ok,
       computeProblems: run && !run.ok ? run.issues.map((i) => `${i.path}: ${i.reason}`) : [],
       outside,
-      method: month.emissionsMethod || site.emissionsMethod || null,
-      factorSet: month.factorSet || site.factorSet || null,
+      method: month.emissionsMethod ? emissionsMethodLabel(month.emissionsMethod).name : null,
+      factorSet: month.factorSet ? factorSetLabel(month.factorSet).name : null,
+      notEnded: notEndedReason(period),
       certificate: cert ? cert.subject : null,
       balancedByActor: balancedBy?.actorUserId === actor.userId,
     },

@@ -8,7 +8,10 @@ import { HttpError, forbidden, notFound, type IssueDetail } from "@/lib/auth/err
 import type { Role } from "@/lib/auth/roles";
 import { monthLabel } from "@/reports/format";
 import { monthEvents } from "./history";
-import { runStoredMonth } from "./month-engine";
+import { insertSnapshot } from "@/db/queries/snapshots";
+import { runStoredMonth, snapshotOf } from "@/lib/ledger/month-runs";
+import { dayLabel as dayText, monthTiming } from "@/lib/period";
+import { actAsLifecycle } from "./db-flag";
 import { queueTransitionNotice } from "./notify";
 import { signMonth } from "./sign";
 import { MIN_REASON_CHARS, RULES, STATE_LABELS, mayPerform, reasonIsLongEnough, rolesText, type MonthState, type TransitionName } from "./transitions";
@@ -60,6 +63,8 @@ export async function transitionMonth(db: Db, actor: LifecycleActor, input: Tran
   const reason = input.reason?.trim() || null;
 
   return db.transaction(async (tx) => {
+    // The database lets only this transaction move the month's state (migration frozen_months).
+    await actAsLifecycle(tx);
     const site = await findSite(tx, actor.organisationId, input.siteId);
     if (!site) throw notFound("The site");
     const [month] = await tx
@@ -82,6 +87,12 @@ export async function transitionMonth(db: Db, actor: LifecycleActor, input: Tran
       throw unmet(`Write a reason of at least ${MIN_REASON_CHARS} characters.`, [{ path: "reason", message: `at least ${MIN_REASON_CHARS} characters` }]);
     }
 
+    const timing = monthTiming(input.period);
+    if ((input.transition === "balance" || input.transition === "send-for-review") && timing.kind !== "ended") {
+      const when = timing.kind === "in-progress" ? `it can be ${input.transition === "balance" ? "balanced" : "sent for sign-off"} from ${dayText(timing.closesOn)}, once its last day (${dayText(timing.lastDay)}) has passed` : `it has not begun (it opens on ${dayText(timing.opensOn)})`;
+      throw refuse("month_not_ended", `${label} is ${timing.kind === "in-progress" ? "in progress" : "in the future"}: ${when}.`, [{ path: "month", message: timing.kind === "in-progress" ? `in progress until ${timing.lastDay}` : "has not begun" }]);
+    }
+
     const extra: Record<string, unknown> = {};
     let balanceNote = month.balanceNote;
     let revision = month.revision;
@@ -90,14 +101,13 @@ export async function transitionMonth(db: Db, actor: LifecycleActor, input: Tran
 
     if (input.transition === "send-for-review") {
       // Checked before the engine runs: without a method the engine can only say "invalid input".
-      const method = month.emissionsMethod || site.emissionsMethod;
-      const factorSet = month.factorSet || site.factorSet;
       const missing: IssueDetail[] = [];
-      if (!method?.trim()) missing.push({ path: "emissions_method", message: "choose an emissions method for the month or the site" });
-      if (!factorSet?.trim()) missing.push({ path: "factor_set", message: "choose a factor set for the month or the site" });
+      if (!month.emissionsMethod.trim()) missing.push({ path: "emissions_method", message: "choose the month's emissions method on the review page" });
+      if (!month.factorSet.trim()) missing.push({ path: "factor_set", message: "choose the month's factor set on the review page" });
       if (missing.length) throw unmet("The statement needs an emissions method and a factor set.", missing);
-      extra.method = method;
-      extra.factorSet = factorSet;
+      extra.method = month.emissionsMethod;
+      extra.factorSet = month.factorSet;
+      extra.gwp = month.gwp;
     }
 
     if (input.transition === "balance" || input.transition === "send-for-review") {
@@ -105,6 +115,11 @@ export async function transitionMonth(db: Db, actor: LifecycleActor, input: Tran
       if (!run || !run.ok) {
         const issues = run && !run.ok ? run.issues.map((i) => ({ path: i.path, message: i.reason })) : [];
         throw unmet(`${label} does not compute from its stored figures; correct them first.`, issues);
+      }
+      if (input.transition === "send-for-review") {
+        // Freeze: from now on every view of this revision reads this snapshot, never the live rows.
+        const snapshot = await insertSnapshot(tx, snapshotOf(run, actor.userId));
+        extra.snapshot = { id: snapshot.id, seq: snapshot.seq, documentSha256: snapshot.documentSha256, resultSha256: snapshot.resultSha256, engineVersion: snapshot.engineVersion };
       }
       if (input.transition === "balance") {
         const outside = run.balances.filter((b) => !b.within);

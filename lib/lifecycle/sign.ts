@@ -1,51 +1,57 @@
 import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import type { Tx } from "@/db/client";
-import type { MonthBundle } from "@/db/queries/months";
-import { statements, type MonthRow } from "@/db/schema";
+import { latestSnapshot } from "@/db/queries/snapshots";
+import { statements, type MonthRow, type MonthSnapshotRow } from "@/db/schema";
 import type { findSite } from "@/db/queries/sites";
 import { HttpError } from "@/lib/auth/errors";
+import { runOfSnapshot, type FrozenFacts } from "@/lib/ledger/month-runs";
+import type { EmbeddedFile } from "@/lib/signing/embed";
 import { issueStatement, NoSigningCertificate, signOffFacts } from "@/lib/signing/issue";
-import { buildMonthlyModel, statementSummary, type StreamFacts } from "@/reports/build-model";
+import { buildMonthlyModel, statementSummary } from "@/reports/build-model";
+import type { EvidenceFacts } from "@/reports/model";
+import { utcStamp } from "@/reports/format";
 import { renderMonthlyStatement } from "@/reports/render";
 import { balanceNoteOf, lastOf, reopenReason, revisionFacts, type TransitionEvent } from "./history";
-import { runStoredMonth } from "./month-engine";
 import type { LifecycleActor } from "./service";
 
 type Site = NonNullable<Awaited<ReturnType<typeof findSite>>>;
 
-/** Stream facts for the statement's input table: names, meters and how each figure was obtained. */
-export function streamFacts(bundle: MonthBundle): StreamFacts[] {
-  const readingOf = new Map(bundle.readings.map((r) => [r.streamId, r]));
-  return bundle.streams.map((s) => ({
-    key: s.key,
-    name: s.name,
-    kind: s.kind,
-    meterTag: s.meterTag,
-    calibratedOn: s.calibratedOn,
-    source: readingOf.get(s.id)?.source ?? null,
-    note: readingOf.get(s.id)?.note ?? null,
-    uncertaintyPct: s.uncertaintyPct,
-  }));
+/** The two frozen documents as the statement carries them: canonical JSON, named for the month. */
+export function frozenFiles(s: Pick<MonthSnapshotRow, "documentText" | "resultText">, siteCode: string, period: string, revision: number): EmbeddedFile[] {
+  const base = `synledger-${siteCode.replace(/[^A-Za-z0-9_-]+/g, "-") || "site"}-${period}-r${revision}`;
+  return [
+    { name: `${base}.plant-month.json`, mediaType: "application/json", description: "Plant-month document the figures were computed from (synledger.plant-month/1, canonical JSON)", bytes: Buffer.from(s.documentText, "utf8") },
+    { name: `${base}.result.json`, mediaType: "application/json", description: "Result document of the engine (synledger.result/1, canonical JSON)", bytes: Buffer.from(s.resultText, "utf8") },
+  ];
+}
+
+export function evidenceOf(f: FrozenFacts, files: EmbeddedFile[]): EvidenceFacts {
+  return {
+    documentSha256: f.documentSha256,
+    resultSha256: f.resultSha256,
+    engineVersion: f.engineVersion,
+    frozenAt: utcStamp(f.frozenAt),
+    files: files.map((x) => ({ name: x.name, what: x.name.endsWith(".result.json") ? "result document" : "plant-month document" })),
+  };
 }
 
 /**
- * Renders the monthly statement from the engine run of the stored month and seals it, inside
- * the caller's transaction (issueStatement runs as a savepoint): the statement row, its audit
- * record and the month's move to Signed commit together or not at all.
+ * Renders the monthly statement from the revision's snapshot (frozen when it was sent for
+ * review) and seals it with the two frozen documents attached, inside the caller's transaction
+ * (issueStatement runs as a savepoint): the statement row, its audit record and the month's move
+ * to Signed commit together or not at all. Nothing is computed again.
  */
 export async function signMonth(tx: Tx, actor: LifecycleActor, site: Site, month: MonthRow, events: TransitionEvent[]) {
   // Segregation of duties: the person who closed this revision's balance does not also sign it.
   const balanced = lastOf(events, "balance", month.revision);
   if (balanced?.actorUserId === actor.userId) {
-    throw new HttpError(
-      403,
-      "segregation_of_duties",
-      "You closed the balance of this revision yourself, so another signatory must sign it.",
-    );
+    throw new HttpError(403, "segregation_of_duties", "You closed the balance of this revision yourself, so another signatory must sign it.");
   }
-  const run = await runStoredMonth(tx, actor.organisationId, site.id, month.period);
-  if (!run || !run.ok) throw new HttpError(422, "precondition_failed", "The month no longer computes from its stored figures; return it with comments.");
+  const snapshot = await latestSnapshot(tx, month.id, month.revision);
+  if (!snapshot) throw new HttpError(422, "precondition_failed", "This revision has no frozen record to sign; return it with comments and send it for sign-off again.");
+  const frozen = runOfSnapshot(snapshot);
+  const context = frozen.frozen.context;
 
   const earlier = await tx
     .select({ revision: statements.revision, signedAt: statements.signedAt, signerName: statements.signerName })
@@ -53,7 +59,7 @@ export async function signMonth(tx: Tx, actor: LifecycleActor, site: Site, month
     .where(and(eq(statements.siteId, site.id), eq(statements.kind, "monthly"), eq(statements.period, month.period)))
     .orderBy(asc(statements.revision));
   const prepared = lastOf(events, "send-for-review", month.revision);
-  const doc = run.doc;
+  const files = frozenFiles(snapshot, context.site.code, month.period, month.revision);
 
   try {
     return await issueStatement(tx, {
@@ -62,22 +68,24 @@ export async function signMonth(tx: Tx, actor: LifecycleActor, site: Site, month
       kind: "monthly",
       period: month.period,
       monthId: month.id,
+      snapshotId: snapshot.id,
       revision: month.revision,
       signer: { userId: actor.userId, name: actor.name, role: "Signatory" },
       location: site.name,
       contactInfo: actor.email,
-      summary: statementSummary(doc),
+      summary: statementSummary(frozen.doc),
       channel: actor.channel ?? "form",
+      files,
       render: (ctx) =>
         renderMonthlyStatement(
           buildMonthlyModel({
             organisation: actor.organisationName,
-            site: { name: site.name, code: site.code, meteringReference: site.meteringReference, closureTolerancePct: site.closureTolerancePct },
+            site: context.site,
             period: month.period,
             revision: month.revision,
             statementRef: ctx.statementId,
-            result: doc,
-            streams: streamFacts(run.bundle),
+            result: frozen.doc,
+            streams: context.streams,
             balanceNote: balanceNoteOf(events, month.revision, month.balanceNote),
             preparedBy: prepared ? `${prepared.actorLabel}, environmental officer` : "not recorded",
             preparedAt: prepared?.at ?? null,
@@ -85,6 +93,7 @@ export async function signMonth(tx: Tx, actor: LifecycleActor, site: Site, month
               ...revisionFacts(events, earlier),
               { revision: month.revision, signedAt: ctx.signedAt, signer: actor.name, reason: reopenReason(events, month.revision) },
             ],
+            evidence: evidenceOf(frozen.frozen, files),
             signOff: signOffFacts(actor.name, ctx),
           }),
         ),

@@ -59,7 +59,7 @@ export const RULES: Record<TransitionName, TransitionRule> = {
     roles: PERMISSIONS["month:prepare"],
     reason: "optional",
     notify: ["signatory"],
-    explains: "The month needs an emissions method and a factor set (its own or the site's), and must still compute with them.",
+    explains: "The month needs its emissions method and factor set, must still compute with them, and its last day must have passed. Sending freezes its figures, stream definitions and method.",
   },
   return: {
     name: "return",

@@ -12,6 +12,7 @@ import { appUrl } from "@/lib/mail/transport";
 import { readP12 } from "./certificate";
 import { sha256Hex } from "./hash";
 import { openPassphrase, sealPassphrase } from "./passphrase-box";
+import { embedFiles, type EmbeddedFile } from "./embed";
 import { sealPdf } from "./seal";
 import { statementReason } from "./statement-ref";
 
@@ -91,6 +92,10 @@ export interface IssueInput {
   summary: Record<string, string>;
   /** Renders the unsigned PDF; gets the id, time and certificate so the page shows what the signature says. */
   render: (ctx: SigningContext) => Promise<Buffer>;
+  /** Files the PDF carries (the frozen documents), embedded before sealing so the signature covers them. */
+  files?: EmbeddedFile[];
+  /** The frozen month the statement was rendered from. */
+  snapshotId?: string | null;
   channel?: Channel;
 }
 
@@ -118,9 +123,10 @@ export async function issueStatement(db: Db | Tx, input: IssueInput): Promise<{ 
       certificateSubject: cert.subject,
       certificateFingerprint: cert.fingerprintSha256,
     });
+    const withFiles = input.files?.length ? await embedFiles(unsigned, input.files, signedAt) : unsigned;
     const passphrase = openPassphrase(cert.passphraseSealed, cert.fingerprintSha256);
     const what = `${input.kind} statement ${input.period} revision ${input.revision}, signed by ${input.signer.name} (${input.signer.role})`;
-    const pdf = await sealPdf(unsigned, cert.p12, passphrase, {
+    const pdf = await sealPdf(withFiles, cert.p12, passphrase, {
       reason: statementReason(statementId, what),
       location: input.location,
       name: input.signer.name,
@@ -135,6 +141,7 @@ export async function issueStatement(db: Db | Tx, input: IssueInput): Promise<{ 
       kind: input.kind,
       period: input.period,
       monthId: input.monthId ?? null,
+      snapshotId: input.snapshotId ?? null,
       revision: input.revision,
       pdf,
       sha256,

@@ -1,5 +1,5 @@
 import { Text, View } from "@react-pdf/renderer";
-import type { FlagRow, GasRow, IntensityRow, MethodSection, RevisionRow, SignOff, UncertaintyRow } from "../model";
+import type { EvidenceFacts, FlagRow, GasRow, IntensityRow, MethodSection, RevisionRow, SignOff, UncertaintyRow } from "../model";
 import { DataTable, KeyValues, QtyText, Section, Status } from "./primitives";
 import { colour, styles } from "./theme";
 
@@ -126,6 +126,34 @@ export function CautionsBlock({ items }: { items: string[] }) {
           <Text style={{ flex: 1 }}>{t}</Text>
         </View>
       ))}
+    </View>
+  );
+}
+
+/** The frozen record behind the figures: both documents' digests, and the files this PDF carries. */
+export function EvidenceBlock({ e }: { e: EvidenceFacts }) {
+  const digest = (hex: string) => (
+    <Text style={{ fontFamily: "Plex Mono", fontSize: 7 }}>
+      {hex.slice(0, 32)}
+      {"\n"}
+      {hex.slice(32)}
+    </Text>
+  );
+  return (
+    <View style={{ marginTop: 14, padding: 8, borderWidth: 0.75, borderColor: colour.rule }} wrap={false}>
+      <Text style={[styles.sectionTitle, { marginBottom: 5 }]}>Frozen record behind these figures</Text>
+      <KeyValues
+        items={[
+          ["Plant-month document, SHA-256", digest(e.documentSha256)],
+          ["Result document, SHA-256", digest(e.resultSha256)],
+          ["Computed by", e.engineVersion],
+          ["Frozen at", e.frozenAt],
+        ]}
+      />
+      <Text style={[styles.small, { marginTop: 4 }]}>
+        Attached to this PDF: {e.files.map((f) => `${f.name} (${f.what})`).join("; ")}. The digests are of these files as attached (canonical JSON, RFC 8785).
+        Anyone holding the PDF can recompute the result from the plant-month document: npm run balance -- --check-statement FILE.pdf.
+      </Text>
     </View>
   );
 }

@@ -38,7 +38,10 @@ export async function lifecycleChecks(k: E2eKit): Promise<void> {
     await page.getByRole("button", { name: button }).click();
     await page.getByText(`Done: the month is now ${state}`).waitFor({ timeout: 60_000 });
   };
-  /** A month of Estuary in the given state, by its review link (August is the drift month). */
+  const now = new Date();
+  const monthName = (d: Date) => d.toLocaleDateString("en-GB", { month: "long", year: "numeric", timeZone: "UTC" });
+  const running = monthName(now);
+  /** A month of Estuary in the given state, by its review link (August is the drift month; the running month cannot be closed yet). */
   const monthIn = async (page: Page, state: string): Promise<string | null> => {
     await page.goto(`${k.base}/statements?year=2026`);
     const block = page.locator("div", { has: page.getByRole("heading", { name: new RegExp(SITE) }) }).last();
@@ -46,7 +49,7 @@ export async function lifecycleChecks(k: E2eKit): Promise<void> {
     for (let i = 0; i < (await items.count()); i++) {
       const a = items.nth(i).getByRole("link");
       const label = (await a.getAttribute("aria-label")) ?? "";
-      if (!label.includes("August")) return (await a.getAttribute("href"))!;
+      if (!label.includes("August") && !label.includes(running)) return (await a.getAttribute("href"))!;
     }
     return null;
   };
@@ -72,10 +75,38 @@ export async function lifecycleChecks(k: E2eKit): Promise<void> {
     await act(engineer, "Close the balance", "Balanced");
   });
 
-  await k.check("officer sends it for sign-off", async () => {
+  await k.check("officer chooses the month's method, factor set and GWP set on the review page", async () => {
+    await officer.goto(review);
+    const panel = officer.getByRole("region", { name: "Method of this month" });
+    await panel.getByLabel("Factor set").selectOption("eu-mrr");
+    await panel.getByLabel("GWP set").selectOption("AR5");
+    await panel.getByRole("button", { name: "Save the method" }).click();
+    await panel.getByText("Saved: the month is computed with the new choice.").waitFor({ timeout: 30_000 });
+    await officer.reload();
+    const chosen = await officer.getByRole("region", { name: "Method of this month" }).innerText();
+    assert(chosen.includes("EU ETS Monitoring and Reporting Regulation") && chosen.includes("eu-mrr"), `chosen: ${chosen.slice(0, 200)}`);
+    await k.shot(officer, "19-review-method");
+  });
+
+  await k.check("officer sends it for sign-off; the page then reads the frozen record", async () => {
     await officer.goto(review);
     assert(!(await officer.getByRole("button", { name: "Close the balance" }).count()), "officer offered the engineer's action");
     await act(officer, "Send for sign-off", "In review");
+    await officer.getByText(/Frozen record of revision \d+/).waitFor();
+    const panel = await officer.getByRole("region", { name: "Method of this month" }).innerText();
+    assert(panel.includes("Frozen with revision") && !(await officer.getByRole("button", { name: "Save the method" }).count()), "method still editable after freezing");
+  });
+
+  await k.check("the running month says it is in progress and cannot be closed; the next month is read-only", async () => {
+    const key = (d: Date) => `${d.getUTCFullYear()}-${String(d.getUTCMonth() + 1).padStart(2, "0")}`;
+    const siteHref = review.replace(/\/months\/.*$/, "");
+    await engineer.goto(`${siteHref}/months/${key(now)}`);
+    await engineer.getByText(`In progress: day ${now.getUTCDate()} of`).waitFor();
+    const next = new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth() + 1, 1));
+    await engineer.goto(`${siteHref}/months/${key(next)}`);
+    await engineer.getByText(`${monthName(next)} has not begun`).waitFor();
+    assert((await engineer.locator("main input").count()) === 0, "the next month's page offers fields to fill");
+    await k.shot(engineer, "18-next-month-read-only");
   });
 
   const signatory = await pageAs("signatory");

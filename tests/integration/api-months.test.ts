@@ -2,7 +2,7 @@ import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { auditEvents, months, streams } from "@/db/schema";
 import type { Role } from "@/lib/auth/roles";
-import { closeTestDb, testDb } from "../support/db";
+import { closeTestDb, asLifecycle, testDb } from "../support/db";
 import { createOrg, type FixtureOrg } from "../support/fixtures";
 import { actAs } from "../support/mock-auth";
 import { ctx, errorOf, request } from "./api-support";
@@ -105,7 +105,7 @@ describe("PUT and GET /api/v1/sites/{siteId}/months/{month}", () => {
   it("refuses edits of a signed month with 409", async () => {
     actAs(org.session("process_engineer"));
     await putMonth(org.siteId, "2026-01", { expectedVersion: 0, readings: [{ stream: "nh3", quantity: "1", unit: "t" }] });
-    await testDb().update(months).set({ state: "signed" }).where(and(eq(months.siteId, org.siteId), eq(months.period, "2026-01")));
+    await asLifecycle((tx) => tx.update(months).set({ state: "signed" }).where(and(eq(months.siteId, org.siteId), eq(months.period, "2026-01"))));
     const res = await putMonth(org.siteId, "2026-01", { expectedVersion: 1, readings: [{ stream: "nh3", quantity: "2", unit: "t" }] });
     expect(res.status).toBe(409);
     expect((await errorOf(res)).code).toBe("month_read_only");

@@ -1,7 +1,7 @@
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { attachments, auditEvents, months, streams } from "@/db/schema";
-import { closeTestDb, testDb } from "../support/db";
+import { closeTestDb, asLifecycle, testDb } from "../support/db";
 import { createOrg, type FixtureOrg } from "../support/fixtures";
 import { actAs } from "../support/mock-auth";
 
@@ -88,12 +88,12 @@ describe("attachments", () => {
   it("deletion: not by another member, not once the month is signed, yes by an administrator, audited", async () => {
     actAs(org.session("environmental_officer"));
     expect((await remove(pdfId)).status).toBe(403);
-    await testDb().update(months).set({ state: "signed" }).where(and(eq(months.siteId, org.siteId), eq(months.period, PERIOD)));
+    await asLifecycle((tx) => tx.update(months).set({ state: "signed" }).where(and(eq(months.siteId, org.siteId), eq(months.period, PERIOD))));
     actAs(org.session("process_engineer"));
     const frozen = await remove(pdfId);
     expect(frozen.status).toBe(409);
     expect((await frozen.json()).error.message).toBe("2026-03 is signed: its evidence can no longer change.");
-    await testDb().update(months).set({ state: "balanced" }).where(and(eq(months.siteId, org.siteId), eq(months.period, PERIOD)));
+    await asLifecycle((tx) => tx.update(months).set({ state: "balanced" }).where(and(eq(months.siteId, org.siteId), eq(months.period, PERIOD))));
     actAs(org.session("administrator"));
     expect((await remove(pdfId)).status).toBe(204);
     expect((await download(pdfId)).status).toBe(404);

@@ -2,7 +2,7 @@ import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { auditEvents, importBatches, importMappings, months, readings, streams } from "@/db/schema";
 import type { ImportMappingInput } from "@/lib/import/mapping";
-import { closeTestDb, testDb } from "../support/db";
+import { closeTestDb, asLifecycle, testDb } from "../support/db";
 import { createOrg, type FixtureOrg } from "../support/fixtures";
 import { actAs } from "../support/mock-auth";
 
@@ -152,7 +152,7 @@ describe("CSV import", () => {
 
   it("a read-only month refuses the whole file, naming the month", async () => {
     actAs(org.session("process_engineer"));
-    await testDb().update(months).set({ state: "signed" }).where(and(eq(months.siteId, org.siteId), eq(months.period, "2026-03")));
+    await asLifecycle((tx) => tx.update(months).set({ state: "signed" }).where(and(eq(months.siteId, org.siteId), eq(months.period, "2026-03"))));
     const before = (await importAudit()).length;
     const file = "Date,Tag,Total,Unit\n05/03/2026,nh3,1,t\n05/05/2026,nh3,2,t\n";
     const pre = await (await call(preview, org.siteId, file)).json();

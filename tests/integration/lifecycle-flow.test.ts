@@ -6,9 +6,10 @@ import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { listAudit } from "@/db/queries/audit";
 import { statementPdf } from "@/db/queries/statements";
-import { memberships, months, sites, statements } from "@/db/schema";
+import { memberships, months, statements } from "@/db/schema";
 import { transitionMonth } from "@/lib/lifecycle/service";
-import { runStoredMonth } from "@/lib/lifecycle/month-engine";
+import { runStoredMonth } from "@/lib/ledger/month-runs";
+import { setMonthMethod } from "@/lib/ledger/month-method";
 import { sha256Hex } from "@/lib/signing/hash";
 import { verifyStatementPdf } from "@/lib/signing/verify";
 import { fixed, signed } from "@/reports/format";
@@ -51,17 +52,22 @@ describe("preconditions", () => {
     expect((e.after as { closures: Record<string, string> }).closures.carbon).toMatch(/^-?\d/);
   });
 
-  it("In review needs a method and a factor set (the month's or the site's)", async () => {
+  it("In review needs the month's own method and factor set", async () => {
     await act(org, "process_engineer", org.estuaryId, "2026-02", "balance");
     const db = testDb();
     const m = await monthRow(org.estuaryId, "2026-02");
-    await db.update(months).set({ factorSet: null, emissionsMethod: null }).where(eq(months.id, m.id));
-    await db.update(sites).set({ factorSet: "", emissionsMethod: "" }).where(eq(sites.id, org.estuaryId));
+    await db.update(months).set({ factorSet: "", emissionsMethod: "" }).where(eq(months.id, m.id));
     const err = await refusal(() => act(org, "environmental_officer", org.estuaryId, "2026-02", "send-for-review"));
     expect(err.status).toBe(422);
     expect(err.issues.map((i) => i.path).sort()).toEqual(["emissions_method", "factor_set"]);
-    // The site's choice is enough when the month has none of its own.
-    await db.update(sites).set({ factorSet: "ipcc-2006", emissionsMethod: "carbon-mass-balance" }).where(eq(sites.id, org.estuaryId));
+    // The site's defaults do not stand in: the month owns its choice, made by the officer.
+    const again = await monthRow(org.estuaryId, "2026-02");
+    await setMonthMethod(db, { organisationId: org.id, userId: org.members.environmental_officer.id, name: "officer" }, org.estuaryId, "2026-02", {
+      emissions: "carbon-mass-balance",
+      factor_set: "ipcc-2006",
+      gwp: "AR5",
+      expectedVersion: again.version,
+    });
     await act(org, "environmental_officer", org.estuaryId, "2026-02", "send-for-review");
     expect((await monthRow(org.estuaryId, "2026-02")).state).toBe("in_review");
   });

@@ -42,7 +42,11 @@ describe("every transition × every role", () => {
     const period = c.allowed ? `2026-0${next++}` : "2026-09";
     it(`${c.t} by ${c.r}: ${c.allowed ? "allowed" : "refused"}`, async () => {
       const from: MonthState = RULES[c.t].from[0];
-      await forceState(org.dunmoorId, period, from);
+      // In review is reached through the service, so the revision has its frozen record to sign.
+      if (from === "in_review") {
+        await forceState(org.dunmoorId, period, "balanced");
+        await act(org, "environmental_officer", org.dunmoorId, period, "send-for-review");
+      } else await forceState(org.dunmoorId, period, from);
       const before = await monthRow(org.dunmoorId, period);
       if (!c.allowed) {
         const err = await refusal(() => act(org, c.r, org.dunmoorId, period, c.t, EXTRA[c.t]));

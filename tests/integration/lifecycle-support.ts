@@ -4,12 +4,13 @@
  */
 import { and, eq } from "drizzle-orm";
 import { seedDemoSites } from "@/db/seed-sites";
-import { months, sites } from "@/db/schema";
+import { gasAnalyses, months, readings, sites, streams } from "@/db/schema";
+import { demoYearMonths } from "@/lib/demo/scenario";
 import { HttpError } from "@/lib/auth/errors";
 import type { Role } from "@/lib/auth/roles";
 import { transitionMonth, type LifecycleActor, type TransitionInput } from "@/lib/lifecycle/service";
 import { ensureDemoCertificate } from "@/lib/signing/demo-seed";
-import { testDb } from "../support/db";
+import { asLifecycle, testDb } from "../support/db";
 import { createOrg, type FixtureOrg } from "../support/fixtures";
 
 export interface LifecycleOrg extends FixtureOrg {
@@ -62,8 +63,31 @@ export async function refusal(run: () => Promise<unknown>): Promise<HttpError> {
 
 /** Sets a month's state directly, for table-driven tests that start from every state. */
 export async function forceState(siteId: string, period: string, state: (typeof months.$inferSelect)["state"]) {
-  await testDb()
-    .update(months)
-    .set({ state })
-    .where(and(eq(months.siteId, siteId), eq(months.period, period)));
+  await asLifecycle((tx) => tx.update(months).set({ state }).where(and(eq(months.siteId, siteId), eq(months.period, period))));
+}
+
+/**
+ * Twelve whole months of a past year at one of the org's demo sites, stored as the seed stores
+ * months (Open), for tests that need a year that has ended (the demo's own year may still run).
+ */
+export async function seedPastYear(org: LifecycleOrg, siteCode: "estuary" | "dunmoor", year: number): Promise<string> {
+  const siteId = siteCode === "estuary" ? org.estuaryId : org.dunmoorId;
+  const db = testDb();
+  const siteStreams = await db.select().from(streams).where(eq(streams.siteId, siteId));
+  const idOf = new Map(siteStreams.map((s) => [s.key, s.id]));
+  for (const doc of demoYearMonths(siteCode, year)) {
+    const [m] = await db.insert(months).values({ siteId, period: doc.month, emissionsMethod: doc.method.emissions, factorSet: doc.method.factor_set, gwp: doc.method.gwp }).returning();
+    for (const [key, a] of Object.entries(doc.analyses)) {
+      await db.insert(gasAnalyses).values({ monthId: m.id, key, components: Object.fromEntries(Object.entries(a.components).map(([c, v]) => [c, v!.toFixed()])) });
+    }
+    await db.insert(readings).values(doc.streams.map((s) => ({ monthId: m.id, streamId: idOf.get(s.id)!, quantity: s.quantity.toFixed(), unit: s.unit })));
+  }
+  return siteId;
+}
+
+/** Takes a month Open → Balanced → In review → Signed through the service, as the plant's people would. */
+export async function signThrough(org: LifecycleOrg, siteId: string, period: string, reason?: string) {
+  await act(org, "process_engineer", siteId, period, "balance", reason ? { reason } : {});
+  await act(org, "environmental_officer", siteId, period, "send-for-review");
+  return act(org, "signatory", siteId, period, "sign");
 }

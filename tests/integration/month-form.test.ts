@@ -1,8 +1,8 @@
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { auditEvents, months, readings, streams } from "@/db/schema";
-import { closeTestDb, testDb } from "../support/db";
-import { createOrg, type FixtureOrg } from "../support/fixtures";
+import { asLifecycle, closeTestDb, testDb } from "../support/db";
+import { createOrg, newMonth, type FixtureOrg } from "../support/fixtures";
 import { actAs } from "../support/mock-auth";
 
 vi.mock("@/auth", () => import("../support/mock-auth"));
@@ -92,7 +92,7 @@ describe("saveMonthForm", () => {
 
   it("a read-only month refuses the save and says why", async () => {
     actAs(org.session("process_engineer"));
-    await testDb().insert(months).values({ siteId: org.siteId, period: "2026-01", state: "signed", version: 3 });
+    await asLifecycle((tx) => tx.insert(months).values({ ...newMonth(org.siteId, "2026-01"), state: "signed", version: 3 }));
     const r = await saveMonthForm(org.siteId, "2026-01", figures(3));
     expect(r).toMatchObject({ ok: false, code: "month_read_only", message: expect.stringContaining("signed") });
   });

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { auditEvents, months, readings, streams } from "@/db/schema";
 import { HttpError } from "@/lib/auth/errors";
 import { saveMonthFigures, type Editor } from "@/lib/ledger/save-month";
-import { closeTestDb, testDb } from "../support/db";
+import { closeTestDb, asLifecycle, testDb } from "../support/db";
 import { createOrg, type FixtureOrg } from "../support/fixtures";
 
 let org: FixtureOrg;
@@ -107,7 +107,7 @@ describe("saveMonthFigures", () => {
   });
 
   it("refuses edits to a signed month", async () => {
-    await testDb().update(months).set({ state: "signed" }).where(and(eq(months.siteId, org.siteId), eq(months.period, "2026-04")));
+    await asLifecycle((tx) => tx.update(months).set({ state: "signed" }).where(and(eq(months.siteId, org.siteId), eq(months.period, "2026-04"))));
     const [m] = await testDb().select().from(months).where(and(eq(months.siteId, org.siteId), eq(months.period, "2026-04")));
     const err = await refusal(() =>
       saveMonthFigures(testDb(), editor, org.siteId, "2026-04", { expectedVersion: m.version, readings: [{ stream: "nh3", quantity: "1", unit: "t" }] }),

@@ -1,3 +1,4 @@
+import { sql } from "drizzle-orm";
 import { createDb, type Db } from "@/db/client";
 
 let db: Db | null = null;
@@ -14,4 +15,16 @@ export function testDb(): Db {
 export async function closeTestDb(): Promise<void> {
   await db?.$client.end();
   db = null;
+}
+
+/**
+ * Runs `fn` in a transaction marked as the life cycle's (the transaction-local setting the
+ * frozen-month triggers check), for fixtures that must start a month in a given state. Only tests
+ * use this; the app goes through lib/lifecycle.
+ */
+export async function asLifecycle<T>(fn: (tx: Parameters<Parameters<Db["transaction"]>[0]>[0]) => Promise<T>): Promise<T> {
+  return testDb().transaction(async (tx) => {
+    await tx.execute(sql`select set_config('synledger.lifecycle', 'on', true)`);
+    return fn(tx);
+  });
 }

@@ -66,3 +66,12 @@ export async function createOrg(db: Db, label = "Org"): Promise<FixtureOrg> {
     },
   };
 }
+
+/** A new month row as lockMonth makes it (the site's default method), for fixtures that insert months directly. */
+export const newMonth = (siteId: string, period: string) => ({
+  siteId,
+  period,
+  emissionsMethod: "carbon-mass-balance",
+  factorSet: "ipcc-2006",
+  gwp: "AR5",
+});

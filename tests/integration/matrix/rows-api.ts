@@ -2,6 +2,7 @@ import { randomUUID } from "node:crypto";
 import { recordAudit } from "@/db/queries/audit";
 import { apiTokens, months } from "@/db/schema";
 import { ROLES } from "@/lib/auth/roles";
+import { newMonth } from "../../support/fixtures";
 import { type MatrixContext, type MatrixRow, matrixRequest } from "./types";
 
 /** Rows of the REST API v1 read/write routes, the audit export and the API-token actions. */
@@ -27,7 +28,7 @@ const PLANT_MONTH = JSON.stringify({
 
 /** Result and export need the month to exist (an unknown month is a 404 of its own). */
 async function withMonth(ctx: MatrixContext) {
-  await ctx.db.insert(months).values({ siteId: ctx.target.siteId, period: MONTH }).onConflictDoNothing();
+  await ctx.db.insert(months).values(newMonth(ctx.target.siteId, MONTH)).onConflictDoNothing();
   return month(ctx);
 }
 
@@ -76,6 +77,15 @@ export const apiRows: MatrixRow[] = [
       ),
   },
   { id: "GET /api/v1/sites/[siteId]/months/[month]/result", allowed: ROLES, call: async (c) => (await import("@/app/api/v1/sites/[siteId]/months/[month]/result/route")).GET(req("GET"), params(await withMonth(c))) },
+  {
+    id: "PUT /api/v1/sites/[siteId]/months/[month]/method",
+    allowed: ["environmental_officer", "administrator"],
+    call: async (c) =>
+      (await import("@/app/api/v1/sites/[siteId]/months/[month]/method/route")).PUT(
+        req("PUT", JSON.stringify({ emissions: "fuel-calculation", factor_set: "eu-mrr", gwp: "AR5", expectedVersion: 0 })),
+        params(month(c)),
+      ),
+  },
   { id: "GET /api/v1/sites/[siteId]/months/[month]/export", allowed: ROLES, call: async (c) => (await import("@/app/api/v1/sites/[siteId]/months/[month]/export/route")).GET(req("GET"), params(await withMonth(c))) },
   {
     id: "POST /api/v1/sites/[siteId]/months/[month]/import",

@@ -1,6 +1,7 @@
 import { createHash, randomUUID } from "node:crypto";
 import { months, signingCertificates, statements } from "@/db/schema";
 import { ROLES } from "@/lib/auth/roles";
+import { newMonth } from "../../support/fixtures";
 import { type MatrixContext, type MatrixRow, matrixRequest } from "./types";
 
 /** Rows of the life cycle, statements, verification and signing-certificate routes and actions. */
@@ -46,7 +47,7 @@ async function storedStatement({ db, target }: MatrixContext): Promise<string> {
 }
 
 async function openMonth({ db, target }: MatrixContext) {
-  const [m] = await db.insert(months).values({ siteId: target.siteId, period: "2026-03" }).onConflictDoNothing().returning();
+  const [m] = await db.insert(months).values(newMonth(target.siteId, "2026-03")).onConflictDoNothing().returning();
   return m?.version ?? 1;
 }
 
@@ -121,6 +122,17 @@ export const lifecycleRows: MatrixRow[] = [
       return (await import("@/app/(app)/sites/[siteId]/months/[month]/review/actions")).transitionAction(
         null,
         form({ siteId: ctx.target.siteId, period: "2026-03", transition: "balance", expectedVersion: String(version) }),
+      );
+    },
+  },
+  {
+    id: "app/(app)/sites/[siteId]/months/[month]/review/actions.ts#setMonthMethodAction",
+    allowed: ["environmental_officer", "administrator"],
+    async call(ctx) {
+      const version = await openMonth(ctx);
+      return (await import("@/app/(app)/sites/[siteId]/months/[month]/review/actions")).setMonthMethodAction(
+        null,
+        form({ siteId: ctx.target.siteId, period: "2026-03", emissions: "fuel-calculation", factor_set: "eu-mrr", gwp: "AR5", expectedVersion: String(version) }),
       );
     },
   },

@@ -73,6 +73,8 @@ describe("a file with good and bad rows", () => {
           { stream: "nh3", quantity: "2899.2", unit: "t", values: 2, firstRow: 3 },
         ],
         analyses: [],
+        // The last day with a value: what the month's figures cover.
+        lastDay: "2026-03-03",
       },
     ]);
     expect(r.warnings.map((w) => w.message)).toEqual([

@@ -43,6 +43,16 @@ const signOff: MonthlyStatementModel["signOff"] = {
 export const sampleMonthly: MonthlyStatementModel = {
   header,
   method,
+  evidence: {
+    documentSha256: "4d2b6f8a0c1e3a5b7d9f1c3e5a7b9d0f2a4c6e8b0d1f3a5c7e9b1d3f5a7c9e0b",
+    resultSha256: "e1c3a5b7d9f0a2c4e6b8d0f1a3c5e7b9d2f4a6c8e0b1d3f5a7c9e2b4d6f8a0c1",
+    engineVersion: "synledger-engine/2026.12.1",
+    frozenAt: "2026-04-08 09:12 UTC",
+    files: [
+      { name: "synledger-estuary-2026-03-r2.plant-month.json", what: "plant-month document" },
+      { name: "synledger-estuary-2026-03-r2.result.json", what: "result document" },
+    ],
+  },
   inputs: [
     { stream: "Feed gas to primary reformer", kind: "feed gas", quantity: { value: "31 482 600", unit: "Sm³" }, dataSource: "meter FT-101, calibrated 2025-11-04", uncertainty: "± 1.0 %" },
     { stream: "Fuel gas to reformer burners", kind: "fuel gas", quantity: { value: "12 904 350", unit: "Sm³" }, dataSource: "meter FT-114, calibrated 2025-09-18", uncertainty: "± 1.5 %" },
@@ -107,6 +117,9 @@ const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "
 export const sampleAnnual: AnnualStatementModel = {
   header: { ...header, period: "2026", periodLabel: "Calendar year 2026", revision: "1", statementRef: "a1e5b7c9-3d2f-4e6a-8b0c-9f1e2d3c4b5a" },
   method,
+  sources: [
+    { month: "January 2026", revision: "1", statementRef: "5b1f0c3e-2a4d-4e6f-8a0b-1c2d3e4f5a6b", resultSha256: "9c1e7a3b5d0f2e4a6c8b0d1f3a5c7e9b2d4f6a8c0e1b3d5f7a9c2e4b6d8f0a1c" },
+  ],
   units: { ammonia: "t", co2: "t", co2e: "t", intensity: "t CO2e/t NH3" },
   months: MONTHS.map((m, i) => ({
     month: `${m} 2026`,

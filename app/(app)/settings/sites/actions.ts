@@ -4,7 +4,7 @@ import { count, eq } from "drizzle-orm";
 import { revalidatePath } from "next/cache";
 import { getDb } from "@/db";
 import { recordAudit } from "@/db/queries/audit";
-import { insertSite, lockSite, setSiteArchived, siteSnapshot, updateSite } from "@/db/queries/site-admin";
+import { followSiteDefaults, insertSite, lockSite, setSiteArchived, siteSnapshot, updateSite } from "@/db/queries/site-admin";
 import { insertStream, lockStream, streamSnapshot, updateStream } from "@/db/queries/streams";
 import { readings } from "@/db/schema";
 import { guardedAction, type ActionResult, type Actor } from "@/lib/auth/guard";
@@ -66,8 +66,10 @@ export async function editSite(siteId: string, raw: SiteInput): Promise<ActionRe
         const after = await updateSite(tx, before.id, values);
         const [b, a] = [siteSnapshot(before), siteSnapshot(after)];
         if (JSON.stringify(b) === JSON.stringify(a)) return { ok: true, message: "Nothing changed." };
-        await recordAudit(tx, { ...audit(actor, before.id), action: "site.changed", entity: "site", entityId: before.id, before: b, after: a });
-        return { ok: true, message: `${after.name} saved.` };
+        const followed = await followSiteDefaults(tx, before.id, before, after);
+        await recordAudit(tx, { ...audit(actor, before.id), action: "site.changed", entity: "site", entityId: before.id, before: b, after: { ...a, monthsFollowing: followed } });
+        const reach = followed.length ? ` The new method defaults now apply to ${followed.length} ${followed.length === 1 ? "month" : "months"} not yet sent for review (${followed.join(", ")}).` : "";
+        return { ok: true, message: `${after.name} saved.${reach} Months in review, signed or submitted keep what they were frozen with.` };
       });
     } catch (err) {
       if (uniqueViolation(err) === "sites_org_code_key") return codeTaken(values.code);

@@ -10,7 +10,9 @@ import { Status } from "@/components/ui/status";
 import { buttonPrimary, link, pageTitle } from "@/components/ui/styles";
 import { getDb } from "@/db";
 import { findSite } from "@/db/queries/sites";
+import { monthsReachedBySetup } from "@/db/queries/site-admin";
 import { listStreams } from "@/db/queries/streams";
+import { SetupReach } from "@/components/sites/setup-reach";
 import { requirePageActor } from "@/lib/auth/guard";
 
 export const metadata: Metadata = { title: "Site set-up" };
@@ -21,7 +23,7 @@ export default async function SiteSettingsPage({ params }: { params: Promise<{ s
   const db = getDb();
   const site = await findSite(db, actor.organisationId, siteId);
   if (!site) notFound();
-  const streams = await listStreams(db, site.id);
+  const [streams, reach] = await Promise.all([listStreams(db, site.id), monthsReachedBySetup(db, site.id)]);
   const rows = streams.map(({ archivedAt, createdAt: _c, ...s }) => ({ ...s, archived: archivedAt !== null }));
   return (
     <div className="space-y-6">
@@ -42,6 +44,9 @@ export default async function SiteSettingsPage({ params }: { params: Promise<{ s
         <h2 id="site-settings" className="mb-3 text-base font-semibold">
           Site settings
         </h2>
+        <div className="mb-4">
+          <SetupReach reached={reach.reached} frozen={reach.frozen} what="the default method, factor set, GWP set, tolerance or a stream" />
+        </div>
         <SiteForm
           siteId={site.id}
           defaults={{

@@ -4,7 +4,9 @@ import { SiteViewHeader } from "@/components/overview/site-view-header";
 import { EmptyState } from "@/components/ui/empty-state";
 import { WhatIfPanel } from "@/components/what-if/what-if-panel";
 import { getDb } from "@/db";
-import { loadSiteYear, yearsOfSite } from "@/db/queries/overview";
+import { yearsOfSite } from "@/db/queries/overview";
+import { loadSiteYear } from "@/lib/ledger/site-year";
+import { endedRuns } from "@/lib/ledger/year";
 import { findSite } from "@/db/queries/sites";
 import { requirePageActor } from "@/lib/auth/guard";
 import { EMISSION_METHODS, GWP_SETS } from "@/lib/balance/types";
@@ -28,7 +30,8 @@ export default async function WhatIfPage({ params, searchParams }: Props) {
   const years = await yearsOfSite(db, site.id);
   const year = asked && years.includes(asked) ? asked : (years[0] ?? null);
   const y = year ? await loadSiteYear(db, actor.organisationId, site.id, year) : null;
-  const documents = y?.runs.filter((r) => r.result).map((r) => r.document) ?? [];
+  // Complete months only, as the year to date counts them: the running month is provisional.
+  const documents = y ? endedRuns(y.runs).filter((r) => r.result).map((r) => r.document) : [];
 
   return (
     <div className="space-y-5">

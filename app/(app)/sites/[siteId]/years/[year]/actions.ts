@@ -4,7 +4,7 @@ import { revalidatePath } from "next/cache";
 import { getDb } from "@/db";
 import { guardedAction, type ActionResult } from "@/lib/auth/guard";
 import { yearParam } from "@/lib/ledger/exports";
-import { signAnnual } from "./sign-annual";
+import { signAnnual } from "@/lib/lifecycle/sign-annual";
 
 /** The signatory signs the year's annual statement (see sign-annual.ts for when that is allowed). */
 export async function signAnnualStatementAction(_prev: ActionResult<{ id: string }> | null, form: FormData): Promise<ActionResult<{ id: string }>> {

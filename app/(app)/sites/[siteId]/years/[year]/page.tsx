@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { formatMonth } from "@/components/ui/format";
 import { Suspense } from "react";
 import { Section } from "@/components/review/figure-table";
 import { AnnualSignForm } from "@/components/overview/annual-sign-form";
@@ -12,14 +13,17 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/status";
 import { link } from "@/components/ui/styles";
 import { getDb } from "@/db";
-import { loadSiteYear, seriesOf, yearsOfSite } from "@/db/queries/overview";
+import { yearsOfSite } from "@/db/queries/overview";
+import { loadSiteYear, seriesOf } from "@/lib/ledger/site-year";
 import { listStatements } from "@/db/queries/statements";
 import { can, requirePageActor } from "@/lib/auth/guard";
-import { annualReadiness, rollUpRuns, yearBenchmarks, yearBySource, yearTheoreticalMinimum } from "@/lib/ledger/year";
+import { isYearKey } from "@/lib/period";
+import { monthSourcesOf } from "@/lib/lifecycle/sign-annual";
+import { annualReadiness, endedRuns, rollUpRuns, yearBenchmarks, yearBySource, yearTheoreticalMinimum } from "@/lib/ledger/year";
 import { KIND_LABELS } from "@/reports/build-model-parts";
 import { fixed, small, utcStamp } from "@/reports/format";
 import { signAnnualStatementAction } from "./actions";
-import { buildAnnualModel } from "./annual-model";
+import { buildAnnualModel } from "@/reports/build-annual-model";
 
 type Params = { siteId: string; year: string };
 
@@ -31,7 +35,7 @@ export async function generateMetadata({ params }: { params: Promise<Params> }):
 export default async function YearPage({ params }: { params: Promise<Params> }) {
   const { siteId, year } = await params;
   const actor = await requirePageActor();
-  if (!/^\d{4}$/.test(year)) notFound();
+  if (!isYearKey(year)) notFound();
   const db = getDb();
   const y = await loadSiteYear(db, actor.organisationId, siteId, year);
   if (!y) notFound();
@@ -60,16 +64,17 @@ export default async function YearPage({ params }: { params: Promise<Params> }) 
     statementRef: "assigned at signing",
     runs: y.runs,
     rollUp,
-    benchmarks: yearBenchmarks(y.runs, rollUp),
-    theoreticalMin: yearTheoreticalMinimum(y.runs),
+    benchmarks: yearBenchmarks(endedRuns(y.runs), rollUp),
+    theoreticalMin: yearTheoreticalMinimum(endedRuns(y.runs)),
     preparedBy: "from the monthly statements",
     preparedAt: null,
     revisions: [],
+    monthSources: await monthSourcesOf(db, actor.organisationId, y),
     signOff: { signer: "—", role: "Signatory", signedAt: null, certificateSubject: "—", certificateFingerprint: "—", verifyAt: "" },
   });
   const monthly = new Map(statements.filter((s) => s.kind === "monthly").map((s) => [`${s.period}#${s.revision}`, s.id]));
   const annual = statements.filter((s) => s.kind === "annual" && s.period === year);
-  const ready = annualReadiness(y.runs);
+  const ready = annualReadiness(year, y.runs);
   const names = new Map(y.streams.map((s) => [s.key, s.name]));
   const recordedSets = [...new Set(series.months.flatMap((m) => (m.method ? [m.method.factor_set] : [])))];
   const exportBase = `/api/v1/sites/${y.site.id}/years/${year}/export`;
@@ -88,6 +93,13 @@ export default async function YearPage({ params }: { params: Promise<Params> }) 
           <ul className="list-disc pl-5">{rollUp.flags.map((f) => <li key={f.code}>{f.message}</li>)}</ul>
         </Notice>
       ) : null}
+      {series.totals.months_left_out_in_progress.length ? (
+        <Notice tone="pending" title="Provisional: a month in progress is left out">
+          {series.totals.months_left_out_in_progress.map(formatMonth).join(", ")} has not ended: its figures are shown in the months table but not counted in the
+          totals, intensities or uncertainty below, which cover {series.totals.months_included.length} complete{" "}
+          {series.totals.months_included.length === 1 ? "month" : "months"}.
+        </Notice>
+      ) : null}
       <Section id="totals" title={`Totals ${year}`}>
         <YearTotals model={model} series={series} />
       </Section>
@@ -101,7 +113,7 @@ export default async function YearPage({ params }: { params: Promise<Params> }) 
       <div className="grid gap-6 lg:grid-cols-2">
         <Section id="sources" title="Emissions by source">
           <YearBySource
-            rows={yearBySource(y.runs).map((r) => ({ id: r.id, name: names.get(r.id) ?? KIND_LABELS[r.kind] ?? r.id, co2: fixed(r.co2_t, 1), ch4: small(r.ch4_t), n2o: small(r.n2o_t), co2e: fixed(r.co2e_t, 1) }))}
+            rows={yearBySource(endedRuns(y.runs)).map((r) => ({ id: r.id, name: names.get(r.id) ?? KIND_LABELS[r.kind] ?? r.id, co2: fixed(r.co2_t, 1), ch4: small(r.ch4_t), n2o: small(r.n2o_t), co2e: fixed(r.co2e_t, 1) }))}
           />
         </Section>
         <Section id="gases" title="Emissions by gas">

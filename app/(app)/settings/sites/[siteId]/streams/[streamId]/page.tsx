@@ -7,6 +7,8 @@ import { findSite } from "@/db/queries/sites";
 import { findStream, listStreams } from "@/db/queries/streams";
 import { requirePageActor } from "@/lib/auth/guard";
 import { StreamPageFrame } from "../stream-page-frame";
+import { SetupReach } from "@/components/sites/setup-reach";
+import { monthsReachedBySetup } from "@/db/queries/site-admin";
 
 export const metadata: Metadata = { title: "Edit stream" };
 
@@ -18,8 +20,12 @@ export default async function EditStreamPage({ params }: { params: Promise<{ sit
   const s = site ? await findStream(db, actor.organisationId, site.id, streamId) : null;
   if (!site || !s) notFound();
   const analysisKeys = [...new Set((await listStreams(db, site.id)).flatMap((x) => (x.analysisKey ? [x.analysisKey] : [])))];
+  const reach = await monthsReachedBySetup(db, site.id);
   return (
     <StreamPageFrame siteId={site.id} siteName={site.name} title={`Stream ${s.key}`}>
+      <div className="mb-4">
+        <SetupReach reached={reach.reached} frozen={reach.frozen} what={`this stream's definition (kind, analysis, uncertainty, meter tag, factor)`} />
+      </div>
       {s.archivedAt ? (
         <div className="mb-4">
           <Notice tone="locked" title="Archived">

@@ -5,6 +5,7 @@ import { redirect } from "next/navigation";
 import { z } from "zod";
 import { getDb } from "@/db";
 import { guardedAction, type ActionResult } from "@/lib/auth/guard";
+import { setMonthMethod } from "@/lib/ledger/month-method";
 import { transitionMonth } from "@/lib/lifecycle/service";
 import { STATE_LABELS, TRANSITIONS } from "@/lib/lifecycle/transitions";
 
@@ -41,5 +42,31 @@ export async function transitionAction(_prev: ActionResult | null, formData: For
     // The form that was used disappears with the old state, so the outcome travels in the URL.
     redirect(`/sites/${siteId}/months/${period}/review?done=${transition}&notified=${notified}`);
   }
+  return result;
+}
+
+const methodFormSchema = z.object({
+  siteId: z.string().min(1),
+  period: z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/),
+  emissions: z.string(),
+  factor_set: z.string(),
+  gwp: z.string(),
+  expectedVersion: z.coerce.number().int().min(0),
+});
+
+/** The officer (or an administrator) chooses the month's method, factor set and GWP set on the review page. */
+export async function setMonthMethodAction(_prev: ActionResult | null, formData: FormData): Promise<ActionResult> {
+  const raw = Object.fromEntries([...formData.entries()].filter(([k, v]) => !k.startsWith("$") && typeof v === "string"));
+  const result = await guardedAction<undefined>("month:method", "choose the month's method and factor set", async (actor) => {
+    const f = methodFormSchema.parse(raw);
+    const out = await setMonthMethod(getDb(), { organisationId: actor.organisationId, userId: actor.userId, name: actor.name }, f.siteId, f.period, {
+      emissions: f.emissions as never,
+      factor_set: f.factor_set,
+      gwp: f.gwp as never,
+      expectedVersion: f.expectedVersion,
+    });
+    return { ok: true, message: out.changed ? "Saved: the month is computed with the new choice." : "Nothing changed." };
+  });
+  if (result.ok) revalidatePath(`/sites/${encodeURIComponent(String(formData.get("siteId")))}/months/${encodeURIComponent(String(formData.get("period")))}/review`);
   return result;
 }

@@ -7,14 +7,19 @@ import { BalanceSection } from "@/components/review/balance-section";
 import { Section } from "@/components/review/figure-table";
 import { EmissionsSections } from "@/components/review/statement-sections";
 import { EmptyState } from "@/components/ui/empty-state";
-import { formatMonth, isMonthKey } from "@/components/ui/format";
+import { formatDateTime, formatMonth, isMonthKey } from "@/components/ui/format";
 import { Notice } from "@/components/ui/status";
 import { link, pageTitle } from "@/components/ui/styles";
 import { getDb } from "@/db";
-import { requirePageActor } from "@/lib/auth/guard";
+import { can, requirePageActor } from "@/lib/auth/guard";
 import { loadReview } from "@/lib/lifecycle/review-data";
 import { RULES, STATE_LABELS, TRANSITIONS, type TransitionName } from "@/lib/lifecycle/transitions";
-import { transitionAction } from "./actions";
+import { EMISSIONS_METHOD_CHOICES, FACTOR_SET_CHOICES, GWP_CHOICES, emissionsMethodLabel, factorSetLabel, gwpLabel } from "@/lib/ledger/method-labels";
+import { isFrozenState } from "@/lib/ledger/month-runs";
+import { monthTiming } from "@/lib/period";
+import { MethodPanel } from "@/components/review/method-panel";
+import { MonthTimingNotice } from "@/components/month/month-timing";
+import { setMonthMethodAction, transitionAction } from "./actions";
 
 type Params = { siteId: string; month: string };
 
@@ -37,6 +42,16 @@ export default async function ReviewPage({ params, searchParams }: { params: Pro
   if (!data) notFound();
   const { site } = data;
   const monthHref = `/sites/${site.id}/months/${period}`;
+  const timing = monthTiming(period);
+  const frozen = data.run?.ok ? data.run.frozen : null;
+  const method = frozen ? (data.run!.document.method as { emissions: string; factor_set: string; gwp: string }) : data.month ? { emissions: data.month.emissionsMethod, factor_set: data.month.factorSet, gwp: data.month.gwp } : null;
+  const methodLock = !data.month
+    ? null
+    : isFrozenState(data.month.state)
+      ? `Frozen with revision ${data.month.revision}: the month is ${STATE_LABELS[data.month.state]}. Returning it or reopening it lets the method be chosen again.`
+      : !can(actor, "month:method")
+        ? "An environmental officer or an administrator chooses the month's method while it is Open or Balanced."
+        : null;
 
   return (
     <div className="space-y-6">
@@ -56,6 +71,15 @@ export default async function ReviewPage({ params, searchParams }: { params: Pro
         <Notice tone="ok" title={`Done: the month is now ${STATE_LABELS[data.month.state]} (revision ${data.month.revision}).`}>
           You {RULES[done as TransitionName].done}
           {Number(notified) > 0 ? `; ${notified} ${Number(notified) === 1 ? "person was" : "people were"} notified by e-mail` : ""}.
+        </Notice>
+      ) : null}
+
+      {timing.kind !== "ended" ? <MonthTimingNotice period={period} timing={timing} coveredThrough={data.month?.coveredThrough ?? null} /> : null}
+      {frozen ? (
+        <Notice tone="locked" title={`Frozen record of revision ${data.month!.revision}`}>
+          Everything on this page comes from the record frozen on {formatDateTime(frozen.frozenAt)} when the month was sent for sign-off (computed by{" "}
+          {frozen.engineVersion}); later changes to the site&rsquo;s settings do not reach it. Plant-month document SHA-256{" "}
+          <span className="num break-all">{frozen.documentSha256}</span>; result document SHA-256 <span className="num break-all">{frozen.resultSha256}</span>.
         </Notice>
       ) : null}
 
@@ -87,7 +111,7 @@ export default async function ReviewPage({ params, searchParams }: { params: Pro
                 <BalanceSection
                   doc={data.run.doc}
                   model={data.model}
-                  tolerance={site.closureTolerancePct}
+                  tolerance={frozen?.context.site.closureTolerancePct ?? site.closureTolerancePct}
                   streams={data.run.bundle.streams.map((s) => ({ key: s.key, name: s.name, unit: s.unit, meterTag: s.meterTag }))}
                 />
                 <EmissionsSections m={data.model} />
@@ -95,6 +119,17 @@ export default async function ReviewPage({ params, searchParams }: { params: Pro
             ) : null}
           </div>
           <aside className="space-y-6">
+            {method ? (
+              <MethodPanel
+                siteId={site.id}
+                period={period}
+                version={data.month.version}
+                current={{ emissions: emissionsMethodLabel(method.emissions), factorSet: factorSetLabel(method.factor_set), gwp: gwpLabel(method.gwp) }}
+                choices={{ emissions: EMISSIONS_METHOD_CHOICES, factorSet: FACTOR_SET_CHOICES, gwp: GWP_CHOICES }}
+                lockedBecause={methodLock}
+                action={setMonthMethodAction}
+              />
+            ) : null}
             <LifecyclePanel
               roles={actor.roles}
               state={data.month.state}

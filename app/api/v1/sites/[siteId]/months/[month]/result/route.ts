@@ -1,20 +1,20 @@
 import { HttpError } from "@/lib/auth/errors";
-import { documentInput } from "@/lib/api/month-file";
 import { v1Route } from "@/lib/api/route";
 import { requireStartedMonth } from "@/lib/api/site-month";
-import { toResultDocument } from "@/lib/balance/result";
-import { calculateMonth } from "@/lib/ledger/calculate-month";
+import { getDb } from "@/db";
+import { runOfBundle } from "@/lib/ledger/month-runs";
 
 type Params = { siteId: string; month: string };
 
 /**
- * GET /api/v1/sites/{siteId}/months/{month}/result: the engine's result document for the stored
- * figures. A month that cannot be computed yet (a stream without its analysis, say) is 422 with
- * the plant-month paths to complete, not a server error.
+ * GET /api/v1/sites/{siteId}/months/{month}/result: the engine's result document. For a month
+ * In review, Signed or Submitted it is the document frozen with the revision (never computed
+ * again), with the snapshot's digests; otherwise it is computed from the stored figures. A month
+ * that cannot be computed yet is 422 with the plant-month paths to complete.
  */
 export const GET = v1Route<Params>({ permission: "org:read", what: "see results" }, async (_req, caller, { siteId, month }) => {
   const b = await requireStartedMonth(caller, siteId, month);
-  const run = calculateMonth(documentInput(b, month), b.site.closureTolerancePct);
+  const run = await runOfBundle(getDb(), b, month);
   if (!run.ok) {
     throw new HttpError(
       422,
@@ -23,5 +23,14 @@ export const GET = v1Route<Params>({ permission: "org:read", what: "see results"
       run.issues.map((i) => ({ path: i.path, message: i.reason })),
     );
   }
-  return Response.json({ state: b.month.state, revision: b.month.revision, version: b.month.version, result: toResultDocument(run.result) });
+  const frozen = run.frozen
+    ? {
+        snapshot_id: run.frozen.snapshotId,
+        frozen_at: run.frozen.frozenAt,
+        engine_version: run.frozen.engineVersion,
+        document_sha256: run.frozen.documentSha256,
+        result_sha256: run.frozen.resultSha256,
+      }
+    : null;
+  return Response.json({ state: b.month.state, revision: b.month.revision, version: b.month.version, frozen, result: run.doc });
 });

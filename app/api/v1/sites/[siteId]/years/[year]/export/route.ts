@@ -1,5 +1,5 @@
 import { getDb } from "@/db";
-import { loadSiteYear, seriesOf } from "@/db/queries/overview";
+import { loadSiteYear, seriesOf } from "@/lib/ledger/site-year";
 import { HttpError, notFound } from "@/lib/auth/errors";
 import { v1Route } from "@/lib/api/route";
 import { exportName, monthStreamsCsv, ruleSetsCsv, sourcesCsv, yearCsv, yearDocument, yearParam } from "@/lib/ledger/exports";

@@ -1,5 +1,5 @@
 import { getDb } from "@/db";
-import { loadSiteYear, seriesOf } from "@/db/queries/overview";
+import { loadSiteYear, seriesOf } from "@/lib/ledger/site-year";
 import { notFound } from "@/lib/auth/errors";
 import { v1Route } from "@/lib/api/route";
 import { yearParam } from "@/lib/ledger/exports";

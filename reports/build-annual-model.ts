@@ -7,7 +7,8 @@ import { num } from "@/lib/balance/decimal";
 import { toResultDocument } from "@/lib/balance/result";
 import { uncertaintyJson } from "@/lib/balance/result-emissions";
 import type { YearResult } from "@/lib/emissions/year";
-import type { MonthRun, YearBenchmark } from "@/lib/ledger/year";
+import { endedRuns, type MonthRun, type YearBenchmark } from "@/lib/ledger/year";
+import { hasEnded } from "@/lib/period";
 import { flagRows, meteringLabel, methodSection, revisionRows, uncertaintyRow, type RevisionFact } from "@/reports/build-model-parts";
 import { DASH, compare, fixed, monthLabel, percentOver, small, utcStamp } from "@/reports/format";
 import { STATEMENT_CAUTIONS, type AnnualStatementModel, type GasRow, type IntensityRow } from "@/reports/model";
@@ -27,6 +28,9 @@ export interface AnnualModelInput {
   preparedBy: string;
   preparedAt: Date | null;
   revisions: RevisionFact[];
+  /** The monthly statement and frozen result of each month, by period (known once the months are signed). */
+  monthSources?: Map<string, { statementRef: string; resultSha256: string }>;
+  now?: Date;
   signOff: { signer: string; role: string; signedAt: Date | null; certificateSubject: string; certificateFingerprint: string; verifyAt: string };
 }
 
@@ -76,11 +80,14 @@ export function intensityRowsOfYear(y: YearResult, benchmarks: YearBenchmark[], 
 
 export function buildAnnualModel(input: AnnualModelInput): AnnualStatementModel {
   const y = input.rollUp;
-  const computed = input.runs.filter((r) => r.result);
+  const now = input.now ?? new Date();
+  // Totals count ended months only: the running month is shown but never added in.
+  const ended = endedRuns(input.runs, now);
+  const computed = ended.filter((r) => r.result);
   const first = toResultDocument(computed[0].result!);
   const method = methodSection(first);
   if (y.flags.some((f) => f.code.startsWith("mixed-"))) method.notes.push("The months of this year do not all use the same method, factor set or GWP set; each month is stated under its own.");
-  const monthFlags = input.runs.flatMap((r) =>
+  const monthFlags = ended.flatMap((r) =>
     (r.result?.flags ?? []).filter((f) => f.severity !== "info").map((f) => ({ code: f.code, severity: f.severity, message: `${r.period}: ${f.message}`, ...(f.stream ? { stream: f.stream } : {}) })),
   );
   return {
@@ -97,6 +104,10 @@ export function buildAnnualModel(input: AnnualModelInput): AnnualStatementModel 
       preparedAt: input.preparedAt ? utcStamp(input.preparedAt) : DASH,
     },
     method,
+    sources: ended.map((r) => {
+      const src = input.monthSources?.get(r.period);
+      return { month: monthLabel(r.period), revision: String(r.revision), statementRef: src?.statementRef ?? DASH, resultSha256: src?.resultSha256 ?? DASH };
+    }),
     units: { ammonia: "t", co2: "t", co2e: "t", intensity: "t CO2e/t NH3" },
     months: input.runs.map((r) => {
       const d = r.result?.emissions.detail;
@@ -109,7 +120,7 @@ export function buildAnnualModel(input: AnnualModelInput): AnnualStatementModel 
         netCo2: fixed(num(d?.co2.net_t), 1),
         co2e: fixed(num(d?.emissions.co2e_t), 1),
         intensity: fixed(num(d?.intensity.co2e_t_per_t_nh3), 3),
-        status: r.result ? STATE_LABEL[r.state] : "Does not compute",
+        status: !hasEnded(r.period, now) ? "In progress, not counted" : r.result ? STATE_LABEL[r.state] : "Does not compute",
       };
     }),
     totals: {
@@ -120,7 +131,7 @@ export function buildAnnualModel(input: AnnualModelInput): AnnualStatementModel 
       co2e: fixed(num(y.emissions.co2e_t), 1),
       intensity: fixed(num(y.intensity.co2e_t_per_t_nh3), 3),
     },
-    emissionsByGas: gasRows(input.runs),
+    emissionsByGas: gasRows(ended),
     intensities: intensityRowsOfYear(y, input.benchmarks, input.theoreticalMin),
     uncertainty: [
       { ...uncertaintyRow("Gross CO2, year", uncertaintyJson(y.uncertainty.co2)), note: "meter errors independent month to month; factor errors fully correlated across months" },

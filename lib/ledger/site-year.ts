@@ -1,0 +1,67 @@
+import "server-only";
+/**
+ * A site's year, each month through lib/ledger/month-runs: Open and Balanced months computed
+ * from the rows (cached by their exact document), frozen months read from their snapshots.
+ * What the year page, the series endpoint, the exports, the overview, the trends, the what-if
+ * and the annual statement all read.
+ */
+import type { Db, Tx } from "@/db/client";
+import { loadSiteYearRows, type SiteRow, type StreamRow } from "@/db/queries/overview";
+import { cachedCalculation, documentInput, isFrozenState, runOfSnapshot, type FrozenFacts } from "./month-runs";
+import { buildSeries, type YearSeries } from "./series";
+import { rollUpRuns, type MonthRun } from "./year";
+
+export interface SiteYear {
+  site: SiteRow;
+  year: string;
+  streams: StreamRow[];
+  runs: MonthRun[];
+  /** Snapshot facts of the frozen months, by period. */
+  frozen: Map<string, FrozenFacts>;
+}
+
+export async function loadSiteYear(db: Db | Tx, organisationId: string, siteId: string, year: string): Promise<SiteYear | null> {
+  const rows = await loadSiteYearRows(db, organisationId, siteId, year);
+  if (!rows) return null;
+  const { site, streams } = rows;
+  const active = new Set(streams.filter((s) => s.archivedAt === null).map((s) => s.id));
+  const frozen = new Map<string, FrozenFacts>();
+
+  const runs: MonthRun[] = rows.months.map((m) => {
+    const monthReadings = rows.readings.filter((r) => r.monthId === m.id);
+    const base = {
+      id: m.id,
+      period: m.period,
+      state: m.state,
+      revision: m.revision,
+      version: m.version,
+      coveredThrough: m.coveredThrough,
+      readings: { present: monthReadings.filter((r) => active.has(r.streamId)).length, expected: active.size },
+    };
+    const snapshot = isFrozenState(m.state) ? rows.snapshots.get(m.id) : undefined;
+    if (snapshot) {
+      const f = runOfSnapshot(snapshot);
+      frozen.set(m.period, f.frozen);
+      return { ...base, document: f.document, result: f.result, issues: [], frozen: true };
+    }
+    const input = documentInput(
+      { site, month: m, streams, readings: monthReadings, analyses: rows.analyses.filter((a) => a.monthId === m.id) },
+      m.period,
+    );
+    const calc = cachedCalculation(input, site.closureTolerancePct);
+    return { ...base, document: calc.document, result: calc.ok ? calc.result : null, issues: calc.ok ? [] : calc.issues, frozen: false };
+  });
+  return { site, year, streams, runs, frozen };
+}
+
+/** The series of a loaded year (see lib/ledger/series.ts). */
+export function seriesOf(y: SiteYear, now = new Date()): YearSeries {
+  return buildSeries({
+    site: y.site,
+    year: y.year,
+    runs: y.runs,
+    streams: y.streams.map((s) => ({ key: s.key, name: s.name, meterTag: s.meterTag })),
+    rollUp: rollUpRuns(y.runs, now),
+    now,
+  });
+}
