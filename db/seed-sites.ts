@@ -75,6 +75,8 @@ async function seedSite(tx: Tx, organisationId: string, site: DemoSite): Promise
         indirectFactor: s.factor_t_per_MWh ?? null,
         meterTag: s.meter,
         calibratedOn: s.calibrated,
+        // The demo sites calibrate every custody and process meter yearly (an invented rule of theirs).
+        calibrationIntervalMonths: 12,
         sortOrder: i,
       })
       .returning();

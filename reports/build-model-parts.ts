@@ -116,15 +116,20 @@ export interface WrittenNote {
 }
 
 /** Flags with the written explanation that answers them (the engineer's balance note answers closure flags). */
-export function flagRows(flags: ResultDocument["flags"], balanceNote: WrittenNote | null): FlagRow[] {
+/** A flag's written explanation, by `code|stream` (stream "" for month-wide flags). */
+export type FlagNotes = ReadonlyMap<string, { text: string; by: string }>;
+
+export function flagRows(flags: ResultDocument["flags"], balanceNote: WrittenNote | null, notes: FlagNotes = new Map()): FlagRow[] {
   return flags.map((f) => {
-    const answered = balanceNote && /closure-out-of-tolerance$/.test(f.code);
+    const own = notes.get(`${f.code}|${f.stream ?? ""}`);
+    const answered = !own && balanceNote && /closure-out-of-tolerance$/.test(f.code);
     return {
       mark: SEVERITY_MARK[f.severity] ?? "info",
       code: f.code,
+      stream: f.stream ?? "",
       message: f.stream ? `${f.message} (stream ${f.stream})` : f.message,
-      explanation: answered ? balanceNote.text : "",
-      explainedBy: answered ? balanceNote.by : "",
+      explanation: own ? own.text : answered ? balanceNote.text : "",
+      explainedBy: own ? own.by : answered ? balanceNote.by : "",
     };
   });
 }

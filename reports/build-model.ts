@@ -7,6 +7,7 @@ import type { ResultDocument } from "@/lib/balance/result";
 import {
   KIND_LABELS,
   flagRows,
+  type FlagNotes,
   intensityRows,
   meteringLabel,
   methodSection,
@@ -15,6 +16,8 @@ import {
   type RevisionFact,
   type WrittenNote,
 } from "./build-model-parts";
+import { calibrationDueOn } from "@/lib/ledger/calibration";
+import { lastDayOf } from "@/lib/period";
 import { DASH, absWithin, exact, fixed, monthLabel, signed, small, utcStamp } from "./format";
 import { STATEMENT_CAUTIONS, type BalanceRow, type EvidenceFacts, type InputRow, type MonthlyStatementModel } from "./model";
 
@@ -29,6 +32,8 @@ export interface StreamFacts {
   note: string | null;
   /** The meter's stated uncertainty, % (site configuration), when the engine's tiers do not list it. */
   uncertaintyPct?: string | null;
+  /** The site's calibration interval for the meter, months (null: none set). */
+  calibrationIntervalMonths?: number | null;
 }
 
 export interface MonthlyModelInput {
@@ -46,6 +51,8 @@ export interface MonthlyModelInput {
   revisions: RevisionFact[];
   /** The frozen record (snapshot) the statement is rendered from; null before the month is sent. */
   evidence: EvidenceFacts | null;
+  /** Written explanations of the flags, by `code|stream`. */
+  flagNotes?: FlagNotes;
   signOff: {
     signer: string;
     role: string;
@@ -56,12 +63,14 @@ export interface MonthlyModelInput {
   };
 }
 
-function dataSource(s: StreamFacts | undefined): string {
+function dataSource(s: StreamFacts | undefined, monthEnd: string): string {
   if (!s) return DASH;
   const how = s.source === "invoice" ? "invoice" : s.source === "estimate" ? "estimate" : "meter";
   const tag = s.meterTag ? ` ${s.meterTag}` : "";
   const cal = s.calibratedOn && how === "meter" ? `, calibrated ${s.calibratedOn}` : "";
-  return `${how}${how === "meter" ? tag : ""}${cal}${s.note ? `: ${s.note}` : ""}`;
+  const due = s.calibratedOn && s.calibrationIntervalMonths ? calibrationDueOn(s.calibratedOn, s.calibrationIntervalMonths) : null;
+  const overdue = due && due < monthEnd && how === "meter" ? ` (calibration OVERDUE since ${due})` : "";
+  return `${how}${how === "meter" ? tag : ""}${cal}${overdue}${s.note ? `: ${s.note}` : ""}`;
 }
 
 function balanceRows(doc: ResultDocument, tolerance: string, noted: boolean): BalanceRow[] {
@@ -123,7 +132,7 @@ export function buildMonthlyModel(input: MonthlyModelInput): MonthlyStatementMod
       stream: facts?.name ?? s.id,
       kind: KIND_LABELS[s.kind] ?? s.kind,
       quantity: { value: exact(s.quantity), unit: s.unit },
-      dataSource: dataSource(facts),
+      dataSource: dataSource(facts, lastDayOf(input.period)),
       uncertainty: uncertaintyOf(doc, s.id, facts?.uncertaintyPct ?? null),
     };
   });
@@ -178,7 +187,7 @@ export function buildMonthlyModel(input: MonthlyModelInput): MonthlyStatementMod
     },
     intensities: intensityRows(doc),
     uncertainty: [uncertaintyRow("Gross CO2", doc.uncertainty.co2), uncertaintyRow("Net CO2", doc.uncertainty.net_co2)],
-    flags: flagRows(doc.flags, input.balanceNote),
+    flags: flagRows(doc.flags, input.balanceNote, input.flagNotes),
     revisions: revisionRows(input.revisions),
     cautions: [...STATEMENT_CAUTIONS],
     evidence: input.evidence,

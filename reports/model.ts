@@ -94,6 +94,8 @@ export interface UncertaintyRow {
 export interface FlagRow {
   mark: Mark;
   code: string;
+  /** The stream the flag is about, "" when month-wide. */
+  stream: string;
   message: string;
   /** The engineer's or officer's written explanation; "" shows "no explanation recorded". */
   explanation: string;

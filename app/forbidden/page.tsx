@@ -15,6 +15,7 @@ const DOING: Record<Permission, string> = {
   "month:enter": "enter monthly figures",
   "month:balance": "close balances",
   "month:prepare": "prepare statements",
+  "month:explain": "explain flags",
   "month:method": "choose a month's method and factor set",
   "month:sign": "sign statements",
   "audit:read": "read the audit trail",

@@ -1,8 +1,20 @@
 import { eventDiff } from "./diff";
+import { fieldLabel, isIdentifier, valueLabel } from "./labels";
 
-/** One event's before → after: changed fields in full, unchanged ones counted, the raw record on request. */
+/**
+ * One event's before → after: changed fields in full with their names and values in words,
+ * unchanged ones counted. Identifiers the trail keeps for machines (record ids) are left out: the
+ * record column names the record.
+ */
 export function AuditDiff({ before, after }: { before: unknown; after: unknown }) {
-  const d = eventDiff(before, after);
+  const raw = eventDiff(before, after);
+  const d = {
+    ...raw,
+    rows: raw.rows
+      .filter((r) => !isIdentifier(r.before) && !isIdentifier(r.after))
+      .map((r) => ({ ...r, label: fieldLabel(r.field), before: r.before === null ? null : valueLabel(r.field, r.before), after: r.after === null ? null : valueLabel(r.field, r.after) })),
+    context: raw.context.filter((c) => !isIdentifier(c.value)).map((c) => ({ ...c, label: fieldLabel(c.field), value: valueLabel(c.field, c.value) })),
+  };
   if (d.rows.length === 0 && d.context.length === 0) return <span className="text-ink-faint">no values recorded</span>;
   return (
     <div className="space-y-1">
@@ -10,7 +22,7 @@ export function AuditDiff({ before, after }: { before: unknown; after: unknown }
         <p className="text-xs text-ink-soft">
           {d.context.map((c) => (
             <span key={c.field} className="mr-2">
-              {c.field} <span className="num text-ink">{c.value}</span>
+              {c.label} <span className="num text-ink">{c.value}</span>
             </span>
           ))}
         </p>
@@ -19,7 +31,7 @@ export function AuditDiff({ before, after }: { before: unknown; after: unknown }
         <dl className="grid grid-cols-[max-content_1fr] gap-x-3 gap-y-0.5 text-xs">
           {d.rows.map((r) => (
             <div key={r.field} className="contents">
-              <dt className="text-ink-soft">{r.field}</dt>
+              <dt className="text-ink-soft">{r.label}</dt>
               <dd className="num break-all">
                 {r.change === "added" ? (
                   <>

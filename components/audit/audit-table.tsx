@@ -1,10 +1,10 @@
 import { formatDateTime } from "@/components/ui/format";
 import type { AuditTrailRow } from "@/db/queries/audit-trail";
 import { AuditDiff } from "./audit-diff";
-import { entityLabel } from "./labels";
+import { actionLabel, channelLabel, entityLabel } from "./labels";
 
 /** The events of one page; each row reads as who, when, through what, which record, what changed. */
-export function AuditTable({ events }: { events: AuditTrailRow[] }) {
+export function AuditTable({ events, records }: { events: AuditTrailRow[]; records: Map<number, string> }) {
   return (
     <div className="overflow-x-auto border border-rule bg-white">
       <table className="w-full text-left text-sm">
@@ -22,14 +22,13 @@ export function AuditTable({ events }: { events: AuditTrailRow[] }) {
               <td className="num px-3 py-2 whitespace-nowrap text-ink-soft">{formatDateTime(e.at)}</td>
               <td className="px-3 py-2">
                 <div>{e.actorLabel}</div>
-                <div className="text-xs text-ink-soft">via {e.channel}</div>
+                <div className="text-xs text-ink-soft">{channelLabel(e.channel)}</div>
               </td>
               <td className="px-3 py-2">
                 <div>
-                  {entityLabel(e.entity)} <span className="num text-xs text-ink-soft">{e.action}</span>
+                  {entityLabel(e.entity)}: <span className="text-ink-soft">{actionLabel(e.action)}</span>
                 </div>
-                {e.entityId ? <div className="num text-xs text-ink-soft">{e.entityId}</div> : null}
-                {e.siteName ? <div className="text-xs text-ink-soft">{e.siteName}</div> : null}
+                {records.get(e.id) ? <div className="text-xs text-ink-soft">{records.get(e.id)}</div> : e.siteName ? <div className="text-xs text-ink-soft">{e.siteName}</div> : null}
                 {e.reason ? <div className="mt-0.5 text-xs">Reason: {e.reason}</div> : null}
               </td>
               <td className="min-w-64 px-3 py-2">

@@ -1,5 +1,6 @@
 "use client";
 
+import { plainIssue } from "@/lib/plain-path";
 import { useActionState } from "react";
 import { FieldError } from "@/components/ui/field-error";
 import { Notice } from "@/components/ui/status";
@@ -79,7 +80,7 @@ export function TransitionForm(p: TransitionFormProps) {
                   .filter(([k]) => !["reason", "reference", "submittedOn"].includes(k))
                   .map(([k, v]) => (
                     <span key={k} className="block text-sm">
-                      {k}: {v}
+                      {plainIssue(k, v)}
                     </span>
                   ))
               : null}

@@ -3,6 +3,7 @@
 import { Status, type StatusTone } from "@/components/ui/status";
 import { Dec } from "@/lib/balance/decimal";
 import type { CalculationResult } from "@/lib/balance/calculate";
+import { namedSuspects } from "@/lib/balance/suspects";
 import { ClosureBeam } from "./closure-beam";
 import type { LiveOutcome } from "./live-calculation";
 import { formatDecimal, formatSigned } from "./number-format";
@@ -33,7 +34,10 @@ function ClosureRow({ name, closure, tolerance }: { name: string; closure: Dec |
 function Figures({ result, tolerance }: { result: CalculationResult; tolerance: Dec }) {
   const b = result.balances;
   const ratio = b.h2n2Ratio;
-  const suspects = result.reconciliation?.streams.filter((s) => s.suspect) ?? [];
+  const suspects = namedSuspects(result.reconciliation?.streams);
+  // Intensities need a valid ammonia figure: without one they are not zero, they are unknown.
+  const nh3 = result.feed.ammonia_t;
+  const noAmmonia = !nh3 || nh3.isZero();
   return (
     <>
       <div>
@@ -52,19 +56,21 @@ function Figures({ result, tolerance }: { result: CalculationResult; tolerance: 
         <div className="flex items-baseline justify-between gap-2">
           <dt>Energy</dt>
           <dd className="num text-right">
-            {formatDecimal(result.feed.gj_lhv_per_t_nh3, 2)} <span className="text-ink-faint">GJ (LHV)/t NH3</span>
+            {noAmmonia || !result.feed.gj_lhv_per_t_nh3 ? "—" : formatDecimal(result.feed.gj_lhv_per_t_nh3, 2)} <span className="text-ink-faint">GJ (LHV)/t NH3</span>
           </dd>
         </div>
         <div className="flex items-baseline justify-between gap-2">
           <dt>CO2e intensity</dt>
           <dd className="num text-right">
-            {formatDecimal(result.emissions.intensity.co2e_t_per_t_nh3, 3)} <span className="text-ink-faint">t CO2e/t NH3</span>
+            {noAmmonia || !result.emissions.intensity.co2e_t_per_t_nh3 ? "—" : formatDecimal(result.emissions.intensity.co2e_t_per_t_nh3, 3)}{" "}
+            <span className="text-ink-faint">t CO2e/t NH3</span>
           </dd>
         </div>
+        {noAmmonia ? <p className="text-xs text-ink-soft">No valid ammonia figure yet, so no intensity per tonne.</p> : null}
       </dl>
       {suspects.length ? (
         <p className="mt-2 text-sm">
-          <Status tone="warn">Suspect meter: {suspects.map((s) => s.id).join(", ")}</Status>
+          <Status tone="warn">Most likely wrong: {suspects.join(", ")}</Status>
         </p>
       ) : null}
       {result.flags.length ? (
@@ -105,7 +111,7 @@ export function LiveBalancePanel({ outcome, tolerancePct, pending, readOnly }: {
           <ul className="mt-1 list-inside list-disc text-ink-soft">
             {outcome.issues.slice(0, 6).map((i, k) => (
               <li key={k}>
-                <span className="num">{i.where}</span>: {i.reason}
+                {i.where}: {i.reason}
               </li>
             ))}
           </ul>

@@ -5,6 +5,7 @@
  */
 import type { CalculationResult } from "@/lib/balance/calculate";
 import { calculateMonth } from "@/lib/ledger/calculate-month";
+import { plainPath } from "@/lib/plain-path";
 import { DECIMAL_TEXT, type MonthFormValues, type StreamInfo } from "./month-values";
 
 export interface LiveContext {
@@ -42,12 +43,8 @@ export function liveCalculation(values: MonthFormValues, ctx: LiveContext): Live
       ctx.tolerancePct,
     );
     if (calc.ok) return { status: "ok", result: calc.result, counted: readings.length, skipped };
-    const docStreams = (calc.document.streams as { id: string }[]) ?? [];
-    const issues = calc.issues.map((i) => {
-      const m = /^streams\[(\d+)\]/.exec(i.path);
-      const where = m ? `stream ${docStreams[Number(m[1])]?.id ?? i.path}` : i.path.replace(/^analyses\./, "analysis ");
-      return { where, reason: i.reason };
-    });
+    const docStreams = ((calc.document.streams as { id: string }[]) ?? []).map((s) => s.id);
+    const issues = calc.issues.map((i) => ({ where: plainPath(i.path, docStreams), reason: i.reason }));
     return { status: "issues", issues, skipped };
   } catch (err) {
     // The engine refuses some inputs by throwing (e.g. a composition far from 100 %): show why.

@@ -3,6 +3,9 @@ import { Status } from "@/components/ui/status";
 import { link } from "@/components/ui/styles";
 import { ROLE_LABELS, type Role } from "@/lib/auth/roles";
 import { attentionItems, monthsLabel, type AttentionTone } from "./attention";
+import { getDb } from "@/db";
+import { listStreams } from "@/db/queries/streams";
+import { overdueMeters } from "@/lib/ledger/calibration";
 import { loadSeries } from "./load";
 
 const TONE_WORD: Record<AttentionTone, { tone: "fault" | "warn" | "pending"; word: string }> = {
@@ -16,8 +19,23 @@ const TONE_WORD: Record<AttentionTone, { tone: "fault" | "warn" | "pending"; wor
  * own items first, so each role finds its work at the top.
  */
 export async function AttentionList({ organisationId, sites, year, roles }: { organisationId: string; sites: { id: string; name: string }[]; year: string; roles: Role[] }) {
-  const perSite = await Promise.all(sites.map(async (s) => ({ site: s, series: await loadSeries(organisationId, s.id, year) })));
-  const items = perSite.flatMap(({ site, series }) => (series ? attentionItems(series, site.id).map((i) => ({ ...i, site })) : []));
+  const perSite = await Promise.all(
+    sites.map(async (s) => ({ site: s, series: await loadSeries(organisationId, s.id, year), streams: (await listStreams(getDb(), s.id)).filter((x) => !x.archivedAt) })),
+  );
+  const today = new Date().toISOString().slice(0, 10);
+  const items = perSite.flatMap(({ site, series, streams }) => [
+    ...overdueMeters(streams, today).map((o) => ({
+      key: `calibration-${o.meter.key}`,
+      tone: "warn" as const,
+      months: [today.slice(0, 7)],
+      what: `meter ${o.meter.meterTag ?? o.meter.key} (${o.meter.name}) calibration overdue since ${o.dueOn}`,
+      who: "process_engineer" as Role,
+      todo: "have it calibrated; an administrator records the new date",
+      href: `/settings/sites/${site.id}`,
+      site,
+    })),
+    ...(series ? attentionItems(series, site.id).map((i) => ({ ...i, site })) : []),
+  ]);
   const mine = (who: Role) => (roles.includes(who) ? 0 : 1);
   items.sort((a, b) => mine(a.who) - mine(b.who));
   if (items.length === 0) return <p className="border border-rule bg-white px-4 py-3 text-ink-soft">Nothing in {year} waits for anyone.</p>;

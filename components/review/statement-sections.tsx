@@ -3,9 +3,11 @@
  * PDF prints: what the signatory reads here is, string for string, what the statement says.
  */
 import type { MonthlyStatementModel } from "@/reports/model";
+import { ExplainFlagForm, type ExplainContext } from "./explain-flag-form";
 import { FigureTable, MarkText, QtyCell, Section } from "./figure-table";
 
-export function EmissionsSections({ m }: { m: MonthlyStatementModel }) {
+/** `explain`: set when the reader may write explanations of the flags now (engineer or officer, month not frozen). */
+export function EmissionsSections({ m, explain }: { m: MonthlyStatementModel; explain?: ExplainContext }) {
   const u = m.emissionsUnit;
   return (
     <>
@@ -85,7 +87,9 @@ export function EmissionsSections({ m }: { m: MonthlyStatementModel }) {
             {
               title: "Explanation",
               cell: (r) =>
-                r.explanation ? (
+                explain ? (
+                  <ExplainFlagForm ctx={explain} code={r.code} stream={r.stream} current={r.explanation} by={r.explainedBy} />
+                ) : r.explanation ? (
                   <span>
                     {r.explanation} <span className="text-xs text-ink-soft">({r.explainedBy})</span>
                   </span>

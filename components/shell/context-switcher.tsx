@@ -1,6 +1,6 @@
 "use client";
 
-import { useParams, useRouter } from "next/navigation";
+import { useParams, useRouter, useSearchParams } from "next/navigation";
 import { useState, type FormEvent } from "react";
 import { buttonSecondary } from "@/components/ui/styles";
 
@@ -16,8 +16,11 @@ export interface SiteOption {
  */
 export function ContextSwitcher({ sites, defaultMonth }: { sites: SiteOption[]; defaultMonth: string }) {
   const params = useParams<{ siteId?: string; month?: string }>();
+  const search = useSearchParams();
   const router = useRouter();
-  const currentSite = sites.find((s) => s.id === params.siteId)?.id ?? sites[0]?.id ?? "";
+  // A page filtered by site (the audit trail, statements) names it in the query: show the same one.
+  const wanted = params.siteId ?? search.get("site") ?? undefined;
+  const currentSite = sites.find((s) => s.id === wanted)?.id ?? sites[0]?.id ?? "";
   const currentMonth = params.month ?? defaultMonth;
   const [siteId, setSiteId] = useState(currentSite);
   const [month, setMonth] = useState(currentMonth);

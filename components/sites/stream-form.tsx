@@ -129,7 +129,7 @@ export function StreamForm({ siteId, streamId, defaults, analysisKeys }: { siteI
           </FormField>
         ) : null}
       </div>
-      <div className="grid gap-4 sm:grid-cols-3">
+      <div className="grid gap-4 sm:grid-cols-4">
         <FormField id="stream-unc" label="Uncertainty (%, 95 % confidence)" hint="Of the monthly total; used by reconciliation." error={err("uncertaintyPct")}>
           <input id="stream-unc" inputMode="decimal" autoComplete="off" className={`${input} num text-right`} {...register("uncertaintyPct")} {...invalidProps("stream-unc", err("uncertaintyPct"))} />
         </FormField>
@@ -138,6 +138,9 @@ export function StreamForm({ siteId, streamId, defaults, analysisKeys }: { siteI
         </FormField>
         <FormField id="stream-cal" label="Last calibrated" error={err("calibratedOn")}>
           <input id="stream-cal" type="date" className={`${input} num`} {...register("calibratedOn")} {...invalidProps("stream-cal", err("calibratedOn"))} />
+        </FormField>
+        <FormField id="stream-cal-every" label="Calibrated every (months)" hint="The site's own rule; empty: no reminder." error={err("calibrationIntervalMonths")}>
+          <input id="stream-cal-every" inputMode="numeric" autoComplete="off" className={`${input} num text-right`} {...register("calibrationIntervalMonths")} {...invalidProps("stream-cal-every", err("calibrationIntervalMonths"))} />
         </FormField>
       </div>
       <div className="flex items-center gap-3">

@@ -29,12 +29,22 @@ type Stream = { id: string; kind: string; quantity: string; unit: string; [k: st
 const scale = (q: string, pct: string) => new Dec(q).times(new Dec(100).plus(pct).div(100)).toFixed();
 
 /** Changes that are not numbers are named, not guessed: the comparison waits until they are. */
-export function invalidFields(c: WhatIfChanges): string[] {
-  const bad: string[] = [];
-  if (!DECIMAL.test(c.storageT) || c.storageT.startsWith("-")) bad.push("CO2 to storage");
-  if (!DECIMAL.test(c.fuelPct) || new Dec(c.fuelPct).lt(-100)) bad.push("fuel change");
-  if (!DECIMAL.test(c.feedPct) || new Dec(c.feedPct).lt(-100)) bad.push("feed change");
-  return bad;
+export interface WhatIfProblem {
+  field: "storageT" | "fuelPct" | "feedPct";
+  message: string;
+}
+
+/** What is wrong with the changes typed, each in words naming the field; empty when they can be tried. */
+export function whatIfProblems(c: WhatIfChanges): WhatIfProblem[] {
+  const out: WhatIfProblem[] = [];
+  if (!DECIMAL.test(c.storageT)) out.push({ field: "storageT", message: `More CO2 to storage: "${c.storageT}" is not a number; write tonnes with a dot for decimals, e.g. 1500` });
+  else if (new Dec(c.storageT).isNegative()) out.push({ field: "storageT", message: "More CO2 to storage cannot be below 0 t" });
+  for (const [field, name] of [["fuelPct", "Fuel gas change"], ["feedPct", "Feed gas change"]] as const) {
+    const v = c[field];
+    if (!DECIMAL.test(v)) out.push({ field, message: `${name}: "${v}" is not a number; write a percentage such as -5 or 2.5` });
+    else if (new Dec(v).lt(-100)) out.push({ field, message: `${name} of ${v} % would leave less than no gas; use -100 % (none at all) or more` });
+  }
+  return out;
 }
 
 /** One document with the changes applied (a new object; the input is not touched). */

@@ -4,7 +4,7 @@ import { useDeferredValue, useMemo, useState } from "react";
 import { Notice } from "@/components/ui/status";
 import { input, label } from "@/components/ui/styles";
 import { fixed, signed } from "@/reports/format";
-import { difference, invalidFields, runWhatIf, type Figures, type WhatIfChanges } from "./what-if-model";
+import { difference, runWhatIf, whatIfProblems, type Figures, type WhatIfChanges } from "./what-if-model";
 
 interface Option {
   id: string;
@@ -42,7 +42,8 @@ export function WhatIfPanel({
 }) {
   const [c, setC] = useState<WhatIfChanges>({ scope: "year", storageT: "0", fuelPct: "0", feedPct: "0", factorSet: "", method: "", gwp: "" });
   const deferred = useDeferredValue(c);
-  const bad = invalidFields(deferred);
+  const bad = whatIfProblems(deferred);
+  const typed = whatIfProblems(c);
   const outcome = useMemo(() => (bad.length ? null : runWhatIf(documents, deferred, tolerance)), [documents, deferred, tolerance, bad.length]);
   const set = (k: keyof WhatIfChanges) => (e: { target: { value: string } }) => setC({ ...c, [k]: e.target.value.trim() });
   const months = documents.map((d) => String(d.month));
@@ -52,7 +53,7 @@ export function WhatIfPanel({
       <label htmlFor={`wi-${id}`} className={label}>
         {text} <span className="font-normal text-ink-soft">({unit})</span>
       </label>
-      <input id={`wi-${id}`} inputMode="decimal" className={`${input} num`} value={c[id]} onChange={set(id)} aria-invalid={invalidFields(c).some((b) => text.toLowerCase().startsWith(b.split(" ")[0])) || undefined} />
+      <input id={`wi-${id}`} inputMode="decimal" className={`${input} num`} value={c[id]} onChange={set(id)} aria-invalid={typed.some((b) => b.field === id) || undefined} aria-describedby={typed.some((b) => b.field === id) ? "wi-problems" : undefined} />
     </div>
   );
   const select = (id: keyof WhatIfChanges, text: string, options: Option[]) => (
@@ -99,7 +100,17 @@ export function WhatIfPanel({
         <Notice tone="info" title="Nothing here is saved">
           The changes apply to a copy in your browser. The recorded months, their versions and the audit trail stay as they are.
         </Notice>
-        {bad.length ? <Notice tone="warn" title="Not a number">Check: {bad.join(", ")}.</Notice> : null}
+        {bad.length ? (
+          <div id="wi-problems">
+            <Notice tone="warn" title="Check these changes">
+              <ul className="list-disc pl-5">
+                {bad.map((b) => (
+                  <li key={b.field}>{b.message}.</li>
+                ))}
+              </ul>
+            </Notice>
+          </div>
+        ) : null}
         {outcome ? (
           <div className="overflow-x-auto border border-rule bg-white">
             <table className="w-full border-collapse text-sm" aria-live="polite">

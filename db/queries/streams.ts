@@ -56,6 +56,7 @@ export function streamSnapshot(s: StreamRecord) {
     indirectFactor: s.indirectFactor,
     meterTag: s.meterTag,
     calibratedOn: s.calibratedOn,
+    calibrationIntervalMonths: s.calibrationIntervalMonths,
     sortOrder: s.sortOrder,
     archived: s.archivedAt !== null,
   };

@@ -81,3 +81,29 @@ export const gasAnalyses = pgTable(
 export type MonthRow = typeof months.$inferSelect;
 export type ReadingRow = typeof readings.$inferSelect;
 export type GasAnalysisRow = typeof gasAnalyses.$inferSelect;
+
+/**
+ * A written explanation of one flag the engine raised for a month revision (by the process
+ * engineer or the environmental officer), kept with the revision and printed on its statement.
+ * Frozen with the month (trigger), like readings.
+ */
+export const flagNotes = pgTable(
+  "flag_notes",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    monthId: uuid("month_id")
+      .notNull()
+      .references(() => months.id, { onDelete: "cascade" }),
+    revision: integer("revision").notNull(),
+    code: text("code").notNull(),
+    /** The stream the flag is about, or "" for a month-wide flag. */
+    stream: text("stream").notNull().default(""),
+    text: text("text").notNull(),
+    writtenBy: uuid("written_by").references(() => users.id, { onDelete: "set null" }),
+    writtenByName: text("written_by_name").notNull(),
+    writtenRole: text("written_role").notNull(),
+    writtenAt: timestamp("written_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("flag_notes_month_revision_code_stream_key").on(t.monthId, t.revision, t.code, t.stream)],
+);
+export type FlagNoteRow = typeof flagNotes.$inferSelect;

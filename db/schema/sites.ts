@@ -46,6 +46,8 @@ export const streams = pgTable(
     indirectFactor: numeric("indirect_factor"),
     meterTag: text("meter_tag"),
     calibratedOn: date("calibrated_on"),
+    /** How often the site calibrates this meter, in months (its own rule); null: no interval set. */
+    calibrationIntervalMonths: integer("calibration_interval_months"),
     sortOrder: integer("sort_order").notNull().default(0),
     archivedAt: timestamp("archived_at", { withTimezone: true }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),

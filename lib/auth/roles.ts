@@ -24,6 +24,8 @@ export const PERMISSIONS = {
   "month:enter": ["process_engineer"],
   "month:balance": ["process_engineer"],
   "month:prepare": ["environmental_officer"],
+  /** Writing the explanation of a flag the engine raised (while the month is Open or Balanced). */
+  "month:explain": ["process_engineer", "environmental_officer"],
   /** Choosing a month's emissions method, factor set and GWP set (while Open or Balanced). */
   "month:method": ["environmental_officer", "administrator"],
   "month:sign": ["signatory"],

@@ -30,6 +30,16 @@ export interface SnapshotContext {
   site: { name: string; code: string; meteringReference: string; closureTolerancePct: string };
   streams: StreamFacts[];
   analyses: { key: string; sampledOn: string | null; laboratory: string | null }[];
+  /** Explanations of the revision's flags, as written before it was frozen. */
+  flagNotes?: FlagNoteFact[];
+}
+
+export interface FlagNoteFact {
+  code: string;
+  stream: string;
+  text: string;
+  /** "Name, role". */
+  by: string;
 }
 
 export interface FrozenFacts {
@@ -126,11 +136,13 @@ export function streamFacts(bundle: Pick<MonthBundle, "streams" | "readings">): 
     source: readingOf.get(s.id)?.source ?? null,
     note: readingOf.get(s.id)?.note ?? null,
     uncertaintyPct: s.uncertaintyPct,
+    calibrationIntervalMonths: s.calibrationIntervalMonths,
   }));
 }
 
-function contextOf(bundle: MonthBundle): SnapshotContext {
+function contextOf(bundle: MonthBundle, flagNotes: FlagNoteFact[]): SnapshotContext {
   return {
+    flagNotes,
     site: {
       name: bundle.site.name,
       code: bundle.site.code,
@@ -145,7 +157,7 @@ function contextOf(bundle: MonthBundle): SnapshotContext {
 // ── frozen months ──────────────────────────────────────────────────────────────────────────
 
 /** The snapshot row of a live run that is about to go In review (lib/lifecycle writes it). */
-export function snapshotOf(run: Extract<StoredMonthRun, { ok: true }>, createdBy: string | null): NewSnapshot {
+export function snapshotOf(run: Extract<StoredMonthRun, { ok: true }>, createdBy: string | null, flagNotes: FlagNoteFact[] = []): NewSnapshot {
   const b = run.bundle;
   if (!b.month) throw new Error("a month nobody started cannot be frozen");
   const documentText = canonicalJson(run.document);
@@ -163,7 +175,7 @@ export function snapshotOf(run: Extract<StoredMonthRun, { ok: true }>, createdBy
     resultText,
     resultSha256: sha256Of(resultText),
     calculationText: freezeCalculation(run.result),
-    context: contextOf(b),
+    context: contextOf(b, flagNotes),
     createdBy,
   };
 }

@@ -4,6 +4,7 @@
  * string (or null where the month has no value); charts convert to numbers only to draw.
  */
 import { num } from "@/lib/balance/decimal";
+import { namedSuspects } from "@/lib/balance/suspects";
 import type { YearResult } from "@/lib/emissions/year";
 import { hasEnded, monthTiming } from "@/lib/period";
 import { endedRuns, monthsOfYear, yearBenchmarks, yearTheoreticalMinimum, type MonthRun, type MonthStateName, type YearBenchmark } from "./year";
@@ -75,17 +76,8 @@ export interface YearSeries {
 
 const EMPTY_CLOSURES = { carbon: null, nitrogen: null, hydrogen: null };
 
-/**
- * The meters the reconciliation names: the suspect with the largest test statistic and any it
- * cannot be told apart from (the same rule as the engine's flag). Other streams marked suspect
- * are only carried along by the one that is off, so counting them would blame good meters.
- */
-function namedMeters(r: MonthRun["result"]): string[] {
-  const suspects = r?.reconciliation?.streams.filter((s) => s.suspect && s.test_statistic !== null) ?? [];
-  if (suspects.length === 0) return [];
-  const top = suspects.reduce((a, s) => (s.test_statistic!.gt(a) ? s.test_statistic! : a), suspects[0].test_statistic!);
-  return suspects.filter((s) => s.test_statistic!.minus(top).abs().lte(top.times("1e-20"))).map((s) => s.id);
-}
+/** The meters the reconciliation names (lib/balance/suspects.ts). */
+const namedMeters = (r: MonthRun["result"]): string[] => namedSuspects(r?.reconciliation?.streams);
 
 function seriesMonth(period: string, run: MonthRun | undefined, now: Date): SeriesMonth {
   const r = run?.result ?? null;

@@ -8,10 +8,19 @@ import { appUrl } from "@/lib/mail/transport";
 import { buildMonthlyModel } from "@/reports/build-model";
 import { signed } from "@/reports/format";
 import { balanceNoteOf, lastOf, monthEvents, monthStatements, reopenReason, revisionFacts } from "./history";
-import { runStoredMonth, streamFacts } from "@/lib/ledger/month-runs";
+import { flagNotesOf } from "@/db/queries/flag-notes";
+import { runStoredMonth, streamFacts, type FlagNoteFact } from "@/lib/ledger/month-runs";
 import { emissionsMethodLabel, factorSetLabel } from "@/lib/ledger/method-labels";
-import { dayLabel as day, monthTiming } from "@/lib/period";
+import { plainIssue } from "@/lib/plain-path";
+
+/** The stream ids of a plant-month document in its order, so `streams[2]` can be named. */
+export const docStreamIds = (doc: Record<string, unknown>) => ((doc.streams as { id?: string }[] | undefined) ?? []).map((s) => s.id ?? "?");
+import { overdueMeters } from "@/lib/ledger/calibration";
+import { dayLabel as day, lastDayOf, monthTiming } from "@/lib/period";
 import { evidenceOf, frozenFiles } from "./sign";
+
+/** Explanations by `code|stream`, as the statement model looks them up. */
+export const notesMap = (notes: FlagNoteFact[]) => new Map(notes.map((n) => [`${n.code}|${n.stream}`, { text: n.text, by: n.by }]));
 
 /** Why a month cannot be balanced or sent yet, or null once its last day has passed. */
 function notEndedReason(period: string): string | null {
@@ -32,11 +41,12 @@ export async function loadReview(db: Db, actor: { organisationId: string; organi
   const [month] = await db.select().from(months).where(and(eq(months.siteId, site.id), eq(months.period, period)));
   if (!month) return { site, month: null } as const;
 
-  const [run, events, statements, cert] = await Promise.all([
+  const [run, events, statements, cert, liveNotes] = await Promise.all([
     runStoredMonth(db, actor.organisationId, site.id, period),
     monthEvents(db, actor.organisationId, month.id),
     monthStatements(db, actor.organisationId, site.id, period),
     activeCertificateWithKey(db, actor.organisationId),
+    flagNotesOf(db, month.id, month.revision),
   ]);
   const prepared = lastOf(events, "send-for-review", month.revision);
   const frozen = run?.ok ? run.frozen : null;
@@ -51,6 +61,7 @@ export async function loadReview(db: Db, actor: { organisationId: string; organi
       statementRef: "assigned at signing",
       result: run.doc,
       streams: frozen?.context.streams ?? streamFacts(run.bundle),
+      flagNotes: notesMap(frozen ? (frozen.context.flagNotes ?? []) : liveNotes.map((n) => ({ code: n.code, stream: n.stream, text: n.text, by: `${n.writtenByName}, ${n.writtenRole.toLowerCase()}` }))),
       evidence: frozen ? evidenceOf(frozen, frozenFiles({ documentText: "", resultText: "" }, siteFacts.code, period, month.revision)) : null,
       balanceNote: balanceNoteOf(events, month.revision, month.balanceNote),
       preparedBy: prepared ? `${prepared.actorLabel}, environmental officer` : "not sent for sign-off yet",
@@ -65,16 +76,18 @@ export async function loadReview(db: Db, actor: { organisationId: string; organi
     ? run.balances.filter((b) => !b.within).map((b) => `The ${b.element} balance closes at ${signed(b.closurePct, 2)} %, beyond ±${b.tolerancePct} %.`)
     : [];
   const balancedBy = lastOf(events, "balance", month.revision);
+  const meters = (frozen?.context.streams ?? (run ? streamFacts(run.bundle) : [])).map((m) => ({ key: m.key, name: m.name, meterTag: m.meterTag, calibratedOn: m.calibratedOn, calibrationIntervalMonths: m.calibrationIntervalMonths ?? null }));
   return {
     site,
     month,
+    overdue: overdueMeters(meters, lastDayOf(period)),
     run,
     model: model || null,
     events,
     statements,
     pre: {
       computes: !!run?.ok,
-      computeProblems: run && !run.ok ? run.issues.map((i) => `${i.path}: ${i.reason}`) : [],
+      computeProblems: run && !run.ok ? run.issues.map((i) => plainIssue(i.path, i.reason, docStreamIds(run.document))) : [],
       outside,
       method: month.emissionsMethod ? emissionsMethodLabel(month.emissionsMethod).name : null,
       factorSet: month.factorSet ? factorSetLabel(month.factorSet).name : null,

@@ -6,8 +6,9 @@ import { findSite } from "@/db/queries/sites";
 import { months } from "@/db/schema";
 import { HttpError, forbidden, notFound, type IssueDetail } from "@/lib/auth/errors";
 import type { Role } from "@/lib/auth/roles";
-import { monthLabel } from "@/reports/format";
+import { monthLabel, signed } from "@/reports/format";
 import { monthEvents } from "./history";
+import { flagNotesOf } from "@/db/queries/flag-notes";
 import { insertSnapshot } from "@/db/queries/snapshots";
 import { runStoredMonth, snapshotOf } from "@/lib/ledger/month-runs";
 import { dayLabel as dayText, monthTiming } from "@/lib/period";
@@ -118,15 +119,16 @@ export async function transitionMonth(db: Db, actor: LifecycleActor, input: Tran
       }
       if (input.transition === "send-for-review") {
         // Freeze: from now on every view of this revision reads this snapshot, never the live rows.
-        const snapshot = await insertSnapshot(tx, snapshotOf(run, actor.userId));
+        const notes = (await flagNotesOf(tx, month.id, month.revision)).map((n) => ({ code: n.code, stream: n.stream, text: n.text, by: `${n.writtenByName}, ${n.writtenRole.toLowerCase()}` }));
+        const snapshot = await insertSnapshot(tx, snapshotOf(run, actor.userId, notes));
         extra.snapshot = { id: snapshot.id, seq: snapshot.seq, documentSha256: snapshot.documentSha256, resultSha256: snapshot.resultSha256, engineVersion: snapshot.engineVersion };
       }
       if (input.transition === "balance") {
         const outside = run.balances.filter((b) => !b.within);
         if (outside.length && !reasonIsLongEnough(reason)) {
           throw unmet(
-            `${outside.map((b) => `The ${b.element} balance closes at ${b.closurePct} %`).join("; ")}, beyond ±${site.closureTolerancePct} %. Write why (at least ${MIN_REASON_CHARS} characters) to close it anyway.`,
-            outside.map((b) => ({ path: `balances.${b.element}`, message: `closure ${b.closurePct} % beyond ±${b.tolerancePct} %` })),
+            `${outside.map((b) => `The ${b.element} balance closes at ${signed(b.closurePct, 2)} %`).join("; ")}, beyond ±${site.closureTolerancePct} %. Write why (at least ${MIN_REASON_CHARS} characters) to close it anyway.`,
+            outside.map((b) => ({ path: `balances.${b.element}`, message: `closes at ${signed(b.closurePct, 2)} %, beyond ±${b.tolerancePct} %` })),
           );
         }
         balanceNote = reason ?? null;

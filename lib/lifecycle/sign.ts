@@ -86,6 +86,7 @@ export async function signMonth(tx: Tx, actor: LifecycleActor, site: Site, month
             statementRef: ctx.statementId,
             result: frozen.doc,
             streams: context.streams,
+            flagNotes: new Map((context.flagNotes ?? []).map((n) => [`${n.code}|${n.stream}`, { text: n.text, by: n.by }])),
             balanceNote: balanceNoteOf(events, month.revision, month.balanceNote),
             preparedBy: prepared ? `${prepared.actorLabel}, environmental officer` : "not recorded",
             preparedAt: prepared?.at ?? null,

@@ -5,22 +5,25 @@ import { UNITS } from "@/lib/balance/units";
 
 const DECIMAL = /^\d+(\.\d+)?$/;
 
+/** Messages read as sentences: "Quantity must be…", whatever the label's case. */
+const cap = (label: string) => label.charAt(0).toUpperCase() + label.slice(1);
+
 /** Text people type: within a length, and whole Unicode (a lone surrogate cannot be stored or printed). */
 export const typedText = (label: string, max: number) =>
   z
     .string()
     .trim()
-    .max(max, `${label} is longer than ${max} characters`)
-    .refine((s) => s.isWellFormed(), `${label} holds a broken character (a lone UTF-16 surrogate); retype it`);
+    .max(max, `${cap(label)} is longer than ${max} characters`)
+    .refine((s) => s.isWellFormed(), `${cap(label)} holds a broken character (a lone UTF-16 surrogate); retype it`);
 
 /** A non-negative decimal written as text; commas or spaces as thousands separators are refused, not guessed. */
 export const decimalText = (label: string) =>
   z
-    .string({ error: `${label} is required` })
+    .string({ error: `${cap(label)} is required` })
     .trim()
-    .min(1, `${label} is required`)
-    .max(LIMITS.numberChars, `${label} is longer than ${LIMITS.numberChars} characters`)
-    .regex(DECIMAL, `${label} must be a non-negative number with a dot for decimals (e.g. 1250.5)`);
+    .min(1, `${cap(label)} is required`)
+    .max(LIMITS.numberChars, `${cap(label)} is longer than ${LIMITS.numberChars} characters`)
+    .regex(DECIMAL, `${cap(label)} must be a non-negative number with a dot for decimals (e.g. 1250.5)`);
 
 export const readingInputSchema = z.strictObject({
   stream: z.string().min(1, "stream is required").max(LIMITS.nameChars, `stream is longer than ${LIMITS.nameChars} characters`),

@@ -67,6 +67,12 @@ export const streamSchema = z
       .trim()
       .refine((v) => v === "" || /^\d{4}-\d{2}-\d{2}$/.test(v), "Enter the date as YYYY-MM-DD.")
       .transform((v) => (v === "" ? null : v)),
+    calibrationIntervalMonths: z
+      .string()
+      .trim()
+      .refine((v) => v === "" || /^\d{1,3}$/.test(v), "Enter the interval as whole months, e.g. 12.")
+      .refine((v) => v === "" || (Number(v) >= 1 && Number(v) <= 120), "The interval is 1 to 120 months.")
+      .transform((v) => (v === "" ? null : Number(v))),
     sortOrder: z
       .string()
       .trim()
@@ -99,5 +105,6 @@ export const STREAM_DEFAULTS: StreamInput = {
   indirectFactor: "",
   meterTag: "",
   calibratedOn: "",
+  calibrationIntervalMonths: "",
   sortOrder: "0",
 };

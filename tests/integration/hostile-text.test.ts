@@ -9,7 +9,7 @@ import { renderToStaticMarkup } from "react-dom/server";
 import { sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { listApiTokens } from "@/db/queries/api-tokens";
-import { searchAudit } from "@/db/queries/audit-trail";
+import { auditRecordLabels, searchAudit } from "@/db/queries/audit-trail";
 import { listBatches, listMappings } from "@/db/queries/imports";
 import { listInvitations } from "@/db/queries/invitations";
 import { AuditTable } from "@/components/audit/audit-table";
@@ -60,7 +60,7 @@ describe.each(NASTY.map((text, i) => ({ text, i })))("text %#", ({ text, i }) =>
     const made = await sites.createSite({ ...SITE_DEFAULTS, name: `Site ${text} end`, code: `meta-${i}-${org.id.slice(0, 6)}` });
     expect(made).toMatchObject({ ok: true });
     const siteId = made.ok ? made.data!.id : "";
-    const stream = await sites.createStream(siteId, { key: "nh3", name: `Ammonia ${text} end`, kind: "ammonia", unit: "t", analysisKey: "", destination: "", fate: "", uncertaintyPct: "", indirectFactor: "", meterTag: `TAG ${text}`.slice(0, 60), calibratedOn: "", sortOrder: "1" });
+    const stream = await sites.createStream(siteId, { key: "nh3", name: `Ammonia ${text} end`, kind: "ammonia", unit: "t", analysisKey: "", destination: "", fate: "", uncertaintyPct: "", indirectFactor: "", meterTag: `TAG ${text}`.slice(0, 60), calibratedOn: "", calibrationIntervalMonths: "", sortOrder: "1" });
     expect(stream).toMatchObject({ ok: true });
     actAs(org.session("auditor"));
     const site = (await (await siteRoute.GET(request("GET", "/s"), ctx({ siteId }))).json()).site;
@@ -140,7 +140,7 @@ describe("afterwards", () => {
 
   it("the audit trail table renders every text escaped: no live markup reaches the page", async () => {
     const events = await searchAudit(testDb(), org.id, {}, { limit: 500, offset: 0 });
-    const html = renderToStaticMarkup(createElement(AuditTable, { events }));
+    const html = renderToStaticMarkup(createElement(AuditTable, { events, records: await auditRecordLabels(testDb(), org.id, events) }));
     expect(html).toContain("&lt;script&gt;alert(1)&lt;/script&gt;");
     expect(html).not.toContain(HTML);
     expect(html).toContain("DROP TABLE readings");

@@ -57,6 +57,22 @@ describe("saveMonthForm", () => {
     expect(revalidatePath).toHaveBeenCalledWith(`/sites/${org.siteId}/months/2026-02`);
   });
 
+  // Regression (issue 17): one edit was reported as three, with two empty analysis.changed events.
+  it("one changed figure is one change and one audit event, whatever order the analysis arrives in", async () => {
+    actAs(org.session("process_engineer"));
+    const first = await saveMonthForm(org.siteId, "2026-06", figures(0));
+    expect(first).toMatchObject({ ok: true, data: { changed: 3 } });
+    const m = await monthRow("2026-06");
+    const before = (await testDb().select().from(auditEvents).where(eq(auditEvents.organisationId, org.id))).length;
+    // The form sends the analysis again, components in its own order and with trailing zeros.
+    const again = { ...figures(m.version, "45100"), analyses: [{ key: "ng", components: { CO2: "1.00", N2: "1.0", C2H6: "2.80", CH4: "95.20" } }] };
+    const r = await saveMonthForm(org.siteId, "2026-06", again);
+    expect(r).toMatchObject({ ok: true, message: "Saved 1 change.", data: { changed: 1 } });
+    const events = await testDb().select().from(auditEvents).where(eq(auditEvents.organisationId, org.id));
+    expect(events.length - before).toBe(1);
+    expect(events.filter((e) => e.action === "analysis.changed")).toEqual([]);
+  });
+
   it("answers a stale version with the conflict code and what changed, by whom", async () => {
     actAs(org.session("process_engineer"));
     await saveMonthForm(org.siteId, "2026-02", figures(1, "45100"));

@@ -125,13 +125,13 @@ describe("bounds of one plant-month", () => {
     actAs(org.session("process_engineer"));
     const res = await putReading(org.siteId, "2026-04", "nh3", { quantity: "9".repeat(131_072), unit: "t" });
     expect(res.status).toBe(400);
-    expect((await errorOf(res)).issues).toEqual([{ path: "quantity", message: `quantity is longer than ${LIMITS.numberChars} characters` }]);
+    expect((await errorOf(res)).issues).toEqual([{ path: "quantity", message: `Quantity is longer than ${LIMITS.numberChars} characters` }]);
   });
 
   it(`a note over ${LIMITS.noteChars} characters is refused; one of ${LIMITS.noteChars} is kept`, async () => {
     actAs(org.session("process_engineer"));
     const over = await putReading(org.siteId, "2026-04", "nh3", { quantity: "100", unit: "t", note: "n".repeat(LIMITS.noteChars + 1) });
-    expect((await errorOf(over)).issues).toEqual([{ path: "note", message: `note is longer than ${LIMITS.noteChars} characters` }]);
+    expect((await errorOf(over)).issues).toEqual([{ path: "note", message: `Note is longer than ${LIMITS.noteChars} characters` }]);
     const at = await putReading(org.siteId, "2026-04", "nh3", { quantity: "100", unit: "t", note: "n".repeat(LIMITS.noteChars) });
     expect(at.status).toBe(200);
   });

@@ -7,7 +7,7 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/status";
 import { link, pageTitle } from "@/components/ui/styles";
 import { getDb } from "@/db";
-import { auditEntities, auditSites, countAudit, searchAudit } from "@/db/queries/audit-trail";
+import { auditEntities, auditRecordLabels, auditSites, countAudit, searchAudit } from "@/db/queries/audit-trail";
 import { AUDIT_PAGE_SIZE, parseAuditFilter } from "@/lib/api/audit-filter";
 import { trailFilter } from "@/lib/api/audit-csv";
 import { requirePageActor } from "@/lib/auth/guard";
@@ -44,6 +44,7 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
       searchAudit(db, actor.organisationId, f, { limit: AUDIT_PAGE_SIZE, offset: (parsed.filter.page - 1) * AUDIT_PAGE_SIZE }),
       countAudit(db, actor.organisationId, f),
     ]);
+    const records = await auditRecordLabels(db, actor.organisationId, events);
     const filtered = Object.values(values).some(Boolean);
     body =
       events.length === 0 ? (
@@ -65,7 +66,7 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
       ) : (
         <div className="space-y-3">
           <AuditPager filter={parsed.filter} total={total} pageSize={AUDIT_PAGE_SIZE} />
-          <AuditTable events={events} />
+          <AuditTable events={events} records={records} />
           <AuditPager filter={parsed.filter} total={total} pageSize={AUDIT_PAGE_SIZE} />
         </div>
       );

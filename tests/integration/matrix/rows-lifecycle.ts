@@ -136,4 +136,15 @@ export const lifecycleRows: MatrixRow[] = [
       );
     },
   },
+  {
+    id: "app/(app)/sites/[siteId]/months/[month]/review/actions.ts#explainFlagAction",
+    allowed: ["process_engineer", "environmental_officer"],
+    async call(ctx) {
+      await openMonth(ctx);
+      return (await import("@/app/(app)/sites/[siteId]/months/[month]/review/actions")).explainFlagAction(
+        null,
+        form({ siteId: ctx.target.siteId, period: "2026-03", code: "missing-feed", stream: "", text: "The feed meter was out of service all month." }),
+      );
+    },
+  },
 ];

@@ -101,8 +101,8 @@ export const sampleMonthly: MonthlyStatementModel = {
     { figure: "Net CO2", value: { value: "39 162.5", unit: "t CO2" }, expanded: "± 4.4 %", note: "gross CO2 together with export meter FT-512" },
   ],
   flags: [
-    { mark: "attention", code: "H_CLOSURE", message: "Hydrogen balance outside tolerance", explanation: "FT-330 purge meter out of service 3–17 March; purge taken from the design ratio, which under-reads at reduced rate.", explainedBy: "Arvid Lindqvist, process engineer" },
-    { mark: "info", code: "ESTIMATE_USED", message: "An input is an estimate, not a meter reading", explanation: "", explainedBy: "" },
+    { mark: "attention", stream: "", code: "H_CLOSURE", message: "Hydrogen balance outside tolerance", explanation: "FT-330 purge meter out of service 3–17 March; purge taken from the design ratio, which under-reads at reduced rate.", explainedBy: "Arvid Lindqvist, process engineer" },
+    { mark: "info", stream: "", code: "ESTIMATE_USED", message: "An input is an estimate, not a meter reading", explanation: "", explainedBy: "" },
   ],
   revisions: [
     { revision: "1", signedAt: "2026-04-06 10:05 UTC", signer: "Tomasz Ferreira", reason: "First issue" },

@@ -7,6 +7,7 @@ import { requirePageActor } from "@/lib/auth/guard";
 import { utcStamp } from "@/reports/format";
 import { activate, uploadCertificate } from "./actions";
 import { ActivateButton, UploadForm } from "./_components/certificate-forms";
+import { SettingsTabs } from "../settings-tabs";
 
 export const metadata: Metadata = { title: "Signing certificate" };
 
@@ -18,8 +19,9 @@ export default async function SigningSettingsPage() {
   return (
     <div className="max-w-4xl space-y-6">
       <div>
-        <h1 className={pageTitle}>Signing certificate</h1>
-        <p className="max-w-prose text-ink-soft">
+        <h1 className={pageTitle}>Settings</h1>
+        <SettingsTabs current="signing" />
+        <p className="mt-3 max-w-prose text-ink-soft">
           Signed statements are sealed with the organisation&rsquo;s active certificate. Upload the PKCS#12 file (.p12 or .pfx) your
           certificate authority issued; its passphrase is stored encrypted, never in clear. Statements already signed keep the
           certificate they were signed with.

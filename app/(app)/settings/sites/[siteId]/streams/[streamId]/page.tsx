@@ -49,6 +49,7 @@ export default async function EditStreamPage({ params }: { params: Promise<{ sit
           indirectFactor: s.indirectFactor ?? "",
           meterTag: s.meterTag ?? "",
           calibratedOn: s.calibratedOn ?? "",
+          calibrationIntervalMonths: s.calibrationIntervalMonths === null ? "" : String(s.calibrationIntervalMonths),
           sortOrder: String(s.sortOrder),
         }}
       />

@@ -5,6 +5,7 @@ import { redirect } from "next/navigation";
 import { z } from "zod";
 import { getDb } from "@/db";
 import { guardedAction, type ActionResult } from "@/lib/auth/guard";
+import { explainFlag } from "@/lib/ledger/flag-notes";
 import { setMonthMethod } from "@/lib/ledger/month-method";
 import { transitionMonth } from "@/lib/lifecycle/service";
 import { STATE_LABELS, TRANSITIONS } from "@/lib/lifecycle/transitions";
@@ -66,6 +67,26 @@ export async function setMonthMethodAction(_prev: ActionResult | null, formData:
       expectedVersion: f.expectedVersion,
     });
     return { ok: true, message: out.changed ? "Saved: the month is computed with the new choice." : "Nothing changed." };
+  });
+  if (result.ok) revalidatePath(`/sites/${encodeURIComponent(String(formData.get("siteId")))}/months/${encodeURIComponent(String(formData.get("period")))}/review`);
+  return result;
+}
+
+const explainSchema = z.object({
+  siteId: z.string().min(1),
+  period: z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/),
+  code: z.string().min(1).max(120),
+  stream: z.string().max(200).default(""),
+  text: z.string().max(4000),
+});
+
+/** The engineer or the officer explains one flag of the month's current revision. */
+export async function explainFlagAction(_prev: ActionResult | null, formData: FormData): Promise<ActionResult> {
+  const raw = Object.fromEntries([...formData.entries()].filter(([k, v]) => !k.startsWith("$") && typeof v === "string"));
+  const result = await guardedAction<undefined>("month:explain", "explain flags", async (actor) => {
+    const f = explainSchema.parse(raw);
+    await explainFlag(getDb(), actor, f.siteId, f.period, { code: f.code, stream: f.stream, text: f.text });
+    return { ok: true, message: "Explanation saved; it is printed with the flag on the statement." };
   });
   if (result.ok) revalidatePath(`/sites/${encodeURIComponent(String(formData.get("siteId")))}/months/${encodeURIComponent(String(formData.get("period")))}/review`);
   return result;

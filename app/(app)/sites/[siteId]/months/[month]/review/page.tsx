@@ -12,14 +12,15 @@ import { Notice } from "@/components/ui/status";
 import { link, pageTitle } from "@/components/ui/styles";
 import { getDb } from "@/db";
 import { can, requirePageActor } from "@/lib/auth/guard";
-import { loadReview } from "@/lib/lifecycle/review-data";
+import { docStreamIds, loadReview } from "@/lib/lifecycle/review-data";
+import { plainIssue } from "@/lib/plain-path";
 import { RULES, STATE_LABELS, TRANSITIONS, type TransitionName } from "@/lib/lifecycle/transitions";
 import { EMISSIONS_METHOD_CHOICES, FACTOR_SET_CHOICES, GWP_CHOICES, emissionsMethodLabel, factorSetLabel, gwpLabel } from "@/lib/ledger/method-labels";
 import { isFrozenState } from "@/lib/ledger/month-runs";
 import { monthTiming } from "@/lib/period";
 import { MethodPanel } from "@/components/review/method-panel";
 import { MonthTimingNotice } from "@/components/month/month-timing";
-import { setMonthMethodAction, transitionAction } from "./actions";
+import { explainFlagAction, setMonthMethodAction, transitionAction } from "./actions";
 
 type Params = { siteId: string; month: string };
 
@@ -83,6 +84,20 @@ export default async function ReviewPage({ params, searchParams }: { params: Pro
         </Notice>
       ) : null}
 
+      {data.overdue?.length ? (
+        <Notice tone="warn" title="Meter calibration overdue in this month">
+          <ul className="list-disc pl-5">
+            {data.overdue.map((o) => (
+              <li key={o.meter.key}>
+                {o.meter.name}
+                {o.meter.meterTag ? <span className="num"> ({o.meter.meterTag})</span> : null}: calibrated {o.meter.calibratedOn}, due {o.dueOn} by the site&rsquo;s{" "}
+                {o.meter.calibrationIntervalMonths}-month interval. The statement marks it.
+              </li>
+            ))}
+          </ul>
+        </Notice>
+      ) : null}
+
       {!data.month ? (
         <EmptyState title="Nothing entered for this month yet">
           <p>The review starts once a process engineer has entered or imported the month&rsquo;s figures.</p>
@@ -94,9 +109,7 @@ export default async function ReviewPage({ params, searchParams }: { params: Pro
               <Notice tone="fault" title="The stored figures do not compute">
                 <ul className="list-disc pl-5">
                   {data.run.issues.map((i) => (
-                    <li key={i.path}>
-                      <span className="num">{i.path}</span>: {i.reason}
-                    </li>
+                    <li key={i.path}>{plainIssue(i.path, i.reason, docStreamIds(data.run!.document))}</li>
                   ))}
                 </ul>
               </Notice>
@@ -114,7 +127,10 @@ export default async function ReviewPage({ params, searchParams }: { params: Pro
                   tolerance={frozen?.context.site.closureTolerancePct ?? site.closureTolerancePct}
                   streams={data.run.bundle.streams.map((s) => ({ key: s.key, name: s.name, unit: s.unit, meterTag: s.meterTag }))}
                 />
-                <EmissionsSections m={data.model} />
+                <EmissionsSections
+                  m={data.model}
+                  explain={!isFrozenState(data.month.state) && can(actor, "month:explain") ? { siteId: site.id, period, action: explainFlagAction } : undefined}
+                />
               </>
             ) : null}
           </div>

@@ -1,0 +1,1 @@
+ALTER TABLE "streams" ADD COLUMN "calibration_interval_months" integer;

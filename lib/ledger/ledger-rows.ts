@@ -1,0 +1,100 @@
+import "server-only";
+/**
+ * The monthly ledger's rows: every site's running month and the twelve before it, each with its
+ * state, revision, ammonia, the three closures, CO2e, intensity, open flags and who acts next.
+ * Read from the same year runs as the year page (frozen months from their snapshots).
+ */
+import type { Db } from "@/db/client";
+import { listSites } from "@/db/queries/sites";
+import type { Role } from "@/lib/auth/roles";
+import { currentMonthKey, monthTiming } from "@/lib/period";
+import { STATE_LABELS, type MonthState } from "@/lib/lifecycle/transitions";
+import { loadSiteYear, seriesOf } from "./site-year";
+import type { SeriesMonth } from "./series";
+
+export interface LedgerRow {
+  siteId: string;
+  siteName: string;
+  month: string;
+  state: MonthState | null;
+  stateLabel: string;
+  timing: "ended" | "in-progress" | "future";
+  revision: number | null;
+  ammonia_t: string | null;
+  closure: { carbon: string | null; nitrogen: string | null; hydrogen: string | null };
+  tolerancePct: string;
+  co2e_t: string | null;
+  intensity: string | null;
+  /** Warnings and errors the engine raised for the month. */
+  flags: string[];
+  next: { role: Role; todo: string } | null;
+  frozen: boolean;
+}
+
+/** Who acts next on a month, in words: the same steps as the overview's "waiting for" list. */
+export function nextStep(m: Pick<SeriesMonth, "state" | "timing" | "computes">): LedgerRow["next"] {
+  if (m.timing === "in-progress") return { role: "process_engineer", todo: "enter figures as the days pass" };
+  if (m.state === null) return m.timing === "ended" ? { role: "process_engineer", todo: "enter or import the figures" } : null;
+  if (!m.computes) return { role: "process_engineer", todo: "complete the figures" };
+  switch (m.state) {
+    case "open":
+      return { role: "process_engineer", todo: "close the balance" };
+    case "balanced":
+      return { role: "environmental_officer", todo: "send for sign-off" };
+    case "in_review":
+      return { role: "signatory", todo: "sign or return" };
+    case "signed":
+      return { role: "environmental_officer", todo: "record the submission" };
+    default:
+      return null;
+  }
+}
+
+/** The last `count` month keys up to and including `last`, newest first. */
+function monthsBack(last: string, count: number): string[] {
+  const [y, m] = last.split("-").map(Number);
+  return Array.from({ length: count }, (_, i) => {
+    const d = new Date(Date.UTC(y, m - 1 - i, 1));
+    return `${d.getUTCFullYear()}-${String(d.getUTCMonth() + 1).padStart(2, "0")}`;
+  });
+}
+
+export async function ledgerRows(db: Db, organisationId: string, now = new Date()): Promise<{ rows: LedgerRow[]; months: string[] }> {
+  const months = monthsBack(currentMonthKey(now), 13);
+  const years = [...new Set(months.map((m) => m.slice(0, 4)))];
+  const sites = await listSites(db, organisationId);
+  const rows: LedgerRow[] = [];
+  for (const site of sites) {
+    const byMonth = new Map<string, SeriesMonth>();
+    let tolerance = "2";
+    for (const year of years) {
+      const y = await loadSiteYear(db, organisationId, site.id, year);
+      if (!y) continue;
+      tolerance = y.site.closureTolerancePct;
+      for (const m of seriesOf(y, now).months) byMonth.set(m.month, m);
+    }
+    for (const month of months) {
+      const m = byMonth.get(month);
+      const timing = monthTiming(month, now).kind;
+      const state = (m?.state ?? null) as MonthState | null;
+      rows.push({
+        siteId: site.id,
+        siteName: site.name,
+        month,
+        state,
+        stateLabel: state ? STATE_LABELS[state] : "Not started",
+        timing,
+        revision: m?.revision ?? null,
+        ammonia_t: m?.ammonia_t ?? null,
+        closure: m?.closure_pct ?? { carbon: null, nitrogen: null, hydrogen: null },
+        tolerancePct: tolerance,
+        co2e_t: m?.co2e_t ?? null,
+        intensity: m?.co2e_t_per_t_nh3 ?? null,
+        flags: (m?.flags ?? []).filter((f) => f.severity !== "info").map((f) => f.message),
+        next: nextStep({ state: m?.state ?? null, timing, computes: m?.computes ?? false }),
+        frozen: m?.frozen ?? false,
+      });
+    }
+  }
+  return { rows, months };
+}
