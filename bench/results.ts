@@ -1,5 +1,6 @@
 /** The figures as a Markdown page (bench/results.md) and the machine they were measured on. */
 import { availableParallelism, cpus, totalmem } from "node:os";
+import type { PageFigure } from "./pages";
 import type { Timing } from "./engine";
 import type { LoadFigure } from "./load";
 import type { PdfFigure } from "./pdf";
@@ -13,6 +14,7 @@ export interface BenchFigures {
   load: { seconds: number; connections: number; figures: LoadFigure[] };
   pdf: PdfFigure[];
   csv: { rows: number; bytes: number; months: number; previewMs: number; commitMs: number };
+  pages: PageFigure[];
 }
 
 export function machine(): string[] {
@@ -49,7 +51,7 @@ export function formatResults(f: BenchFigures): string {
     "| --- | ---: | ---: | ---: | ---: |",
     ...f.engine.map((t) => `| ${t.label} | ${t.count} | ${ms(t.median)} | ${ms(t.p90)} | ${ms(t.max)} |`),
     "",
-    `## HTTP load (${f.load.connections} connections, ${f.load.seconds} s per route, next start, signed-in session cookie)`,
+    `## HTTP load (${f.load.connections} connections, ${f.load.seconds} s per route, production server (server.ts), signed-in session cookie)`,
     "",
     `Data: ${f.seed.sites} sites × 10 years = ${f.seed.months} months, ${f.seed.readings} monthly readings (each the sum of generated daily totals), seeded in ${f.seed.seconds.toFixed(1)} s.`,
     "",
@@ -66,6 +68,14 @@ export function formatResults(f: BenchFigures): string {
     "## CSV import (lib/import service against the bench database)",
     "",
     `${f.csv.rows} rows (${(f.csv.bytes / 1024).toFixed(0)} KiB, long layout, ${f.csv.months} months): check (parse + validate + compare) ${ms(f.csv.previewMs)} ms; commit (everything again + one transaction) ${ms(f.csv.commitMs)} ms.`,
+    "",
+    "## Pages in a browser (headless Chromium, 1440 px, the production build, 50 sites)",
+    "",
+    "From navigation start to the page's main content visible and the page hydrated; median of 5 loads after one warm-up. Target: under 1 000 ms.",
+    "",
+    "| page | median ms | min–max ms |",
+    "| --- | ---: | ---: |",
+    ...f.pages.map((p) => `| ${p.label} | ${p.medianMs} | ${p.minMs}–${p.maxMs} |`),
     "",
   ].join("\n");
 }

@@ -12,6 +12,7 @@ import { formatTimings, runEngineBench } from "./engine";
 import { buildIfStale, signIn, startApp, type RunningApp } from "./app";
 import { benchDatabase, ROOT, type BenchDatabase } from "./cluster";
 import { measure, type LoadFigure } from "./load";
+import { timePages } from "./pages";
 import { timeStatements } from "./pdf";
 import { formatResults, type BenchFigures } from "./results";
 import { BENCH_PASSWORD, EXAMPLE_TEXT, seedFleet, SITE_COUNT } from "./seed";
@@ -88,6 +89,16 @@ try {
     load.push(f);
   }
 
+  // Pages in a browser: the month, its review, the overview and the ledger of the 50-site fleet.
+  const hydrated = (page: import("playwright-core").Page) => page.waitForFunction(() => document.documentElement.dataset.hydrated === "1");
+  const pages = await timePages(app.base, fleet.email, BENCH_PASSWORD, [
+    { label: "month entry (form interactive)", path: `/sites/${site}/months/2025-06`, ready: async (p) => { await p.locator("form[data-interactive]").waitFor(); } },
+    { label: "review of the month", path: `/sites/${site}/months/2025-06/review`, ready: async (p) => { await p.getByRole("heading", { name: "Method of this month" }).waitFor(); await hydrated(p); } },
+    { label: "overview (50 site cards, waiting list)", path: "/", ready: async (p) => { await p.getByRole("heading", { name: "Overview" }).waitFor(); await p.waitForFunction(() => !document.querySelector('[aria-busy="true"]')); await hydrated(p); } },
+    { label: "monthly ledger (50 sites × 13 months)", path: "/months", ready: async (p) => { await p.getByRole("button", { name: /Needs my action/ }).waitFor(); await hydrated(p); } },
+  ]);
+  for (const p of pages) say(`page ${p.label}: median ${p.medianMs} ms (${p.minMs}–${p.maxMs} ms)`);
+
   const figures: BenchFigures = {
     loadAtStart,
     engine,
@@ -96,6 +107,7 @@ try {
     load: { seconds: SECONDS, connections: CONNECTIONS, figures: load },
     pdf,
     csv,
+    pages,
   };
   const page = formatResults(figures);
   writeFileSync(join(ROOT, "bench", "results.md"), page);

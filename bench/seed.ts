@@ -69,8 +69,8 @@ export async function seedFleet(db: Db): Promise<BenchFleet> {
     ),
   );
   await db.execute(sql`
-    INSERT INTO months (site_id, period, version)
-    SELECT s.id, to_char(d, 'YYYY-MM'), 1
+    INSERT INTO months (site_id, period, version, emissions_method, factor_set, gwp)
+    SELECT s.id, to_char(d, 'YYYY-MM'), 1, s.emissions_method, s.factor_set, s.gwp
     FROM sites s, generate_series(${`${FIRST_MONTH}-01`}::date, ${`${LAST_MONTH}-01`}::date, interval '1 month') d
     WHERE s.organisation_id = ${org.id}`);
   // Daily totals scatter ±10 % around the example's monthly figure / 30, three decimals each; the

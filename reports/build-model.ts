@@ -63,6 +63,11 @@ export interface MonthlyModelInput {
   };
 }
 
+/** "carbon 14428.86277 t × 44/12" → "carbon 14 428.9 t × 44/12": figures with more than four decimals, to one. */
+function roundBasis(basis: string): string {
+  return basis.replace(/\d+\.\d{5,}/g, (n) => fixed(n, 1));
+}
+
 function dataSource(s: StreamFacts | undefined, monthEnd: string): string {
   if (!s) return DASH;
   const how = s.source === "invoice" ? "invoice" : s.source === "estimate" ? "estimate" : "meter";
@@ -164,7 +169,8 @@ export function buildMonthlyModel(input: MonthlyModelInput): MonthlyStatementMod
     emissionsUnit: "t",
     emissionsBySource: doc.emissions_by_stream.map((s) => ({
       source: byKey.get(s.id)?.name ?? s.id,
-      basis: s.basis,
+      // The engine states its basis with every digit (the result document keeps them); the page rounds long figures.
+      basis: roundBasis(s.basis),
       co2: fixed(s.co2_t, 1),
       ch4: small(s.ch4_t),
       n2o: small(s.n2o_t),

@@ -1,6 +1,7 @@
 import type { ReactNode } from "react";
 import { Providers } from "@/components/providers";
 import { AppHeader } from "@/components/shell/app-header";
+import { HydrationMark } from "@/components/shell/hydration-mark";
 import { CautionLine } from "@/components/ui/caution-line";
 import { previousMonthKey } from "@/components/ui/format";
 import { getDb } from "@/db";
@@ -20,6 +21,7 @@ export default async function AppLayout({ children }: { children: ReactNode }) {
       <main id="main" className="mx-auto w-full max-w-6xl flex-1 px-5 py-6">
         <Providers>{children}</Providers>
       </main>
+      <HydrationMark />
       <footer className="border-t border-rule px-5 py-4">
         <CautionLine className="mx-auto max-w-6xl" />
       </footer>

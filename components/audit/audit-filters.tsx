@@ -18,7 +18,7 @@ const control = `mt-1 ${input} py-1 text-sm`;
 export function AuditFilters({ values, sites, entities, filter }: Props) {
   return (
     <form method="get" action="/audit" className="border border-rule bg-white px-4 py-3" aria-label="Filter the audit trail">
-      <div className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-6">
+      <div className="grid grid-cols-1 gap-3 min-[420px]:grid-cols-2 sm:grid-cols-3 lg:grid-cols-6">
         <div className={field}>
           <label htmlFor="f-site" className={label}>Site</label>
           <select id="f-site" name="site" defaultValue={values.site ?? ""} className={control}>

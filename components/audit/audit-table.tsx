@@ -6,7 +6,7 @@ import { actionLabel, channelLabel, entityLabel } from "./labels";
 /** The events of one page; each row reads as who, when, through what, which record, what changed. */
 export function AuditTable({ events, records }: { events: AuditTrailRow[]; records: Map<number, string> }) {
   return (
-    <div className="overflow-x-auto border border-rule bg-white">
+    <div className="relative overflow-x-auto border border-rule bg-white" role="region" aria-label="Audit events" tabIndex={0}>
       <table className="w-full text-left text-sm">
         <thead className="border-b border-rule bg-paper-deep text-xs uppercase tracking-wide text-ink-soft">
           <tr>

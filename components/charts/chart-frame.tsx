@@ -8,7 +8,7 @@ import type { ChartRow } from "./chart-data";
 export const INK = "#15233d";
 export const ACCENT = "#1c6d64";
 export const BROWN = "#7d4f00";
-export const SOFT = "#737b8c";
+export const SOFT = "#5f6677";
 export const RULE = "#d9d5c9";
 
 export const axisProps = { stroke: SOFT, tick: { fill: "#46526a", fontSize: 11 }, tickLine: false } as const;
@@ -22,7 +22,10 @@ export function ChartFrame({ id, title, unit, note, children }: { id: string; ti
         <span className="text-xs text-ink-soft">{unit}</span>
       </figcaption>
       {note ? <p className="text-xs text-ink-soft">{note}</p> : null}
-      <div className="mt-1 h-[220px] w-full">{children}</div>
+      {/* The picture is described by the title and the note above; the table view holds the figures. */}
+      <div className="mt-1 h-[220px] w-full" role="img" aria-label={`${title}, ${unit}${typeof note === "string" ? `. ${note}` : ""}`}>
+        {children}
+      </div>
     </figure>
   );
 }

@@ -35,34 +35,48 @@ export function ProductionChart({ rows }: { rows: ChartRow[] }) {
   );
 }
 
+/** Largest gap between the CO2e and the direct CO2 line, relative: when tiny, the lines lie on each other and the note says so. */
+function co2eOverCo2(rows: ChartRow[]): number {
+  let max = 0;
+  for (const r of rows) if (r.co2e !== null && r.co2 !== null && r.co2 > 0) max = Math.max(max, Math.abs(r.co2e - r.co2) / r.co2);
+  return max;
+}
+
 export function IntensityChart({ rows, series }: { rows: ChartRow[]; series: YearSeries }) {
   const keys: SeriesKey[] = [
     { key: "co2e", name: "CO2e", unit: "t CO2e/t NH3", places: 3 },
     { key: "co2", name: "Direct CO2", unit: "t CO2/t NH3", places: 3 },
   ];
+  const together = co2eOverCo2(rows) < 0.005;
+  const notes = [
+    series.benchmarks.length ? `Benchmark lines (labelled at the right): ${series.benchmarks.map((b) => `${b.label} ${fixed(b.value, 3)} ${b.unit}`).join("; ")}.` : "The factor set names no benchmark in force this year.",
+    together ? "CO2e and direct CO2 differ by less than 0.5 % in every month: CO2e is the line, direct CO2 the square markers on it." : "CO2e is the solid line, direct CO2 the square markers.",
+  ];
   return (
-    <ChartFrame
-      id="intensity"
-      title="Intensity per tonne"
-      unit="t CO2e/t NH3 and t CO2/t NH3"
-      note={series.benchmarks.length ? `Benchmark lines: ${series.benchmarks.map((b) => `${b.label} ${fixed(b.value, 3)} ${b.unit}`).join("; ")}.` : "The factor set names no benchmark in force this year."}
-    >
+    <ChartFrame id="intensity" title="Intensity per tonne" unit="t CO2e/t NH3 and t CO2/t NH3" note={notes.join(" ")}>
       <ResponsiveContainer>
-        <LineChart data={rows} margin={margin}>
+        <LineChart data={rows} margin={{ ...margin, right: series.benchmarks.length ? 96 : margin.right }}>
           <Grid />
           <XAxis dataKey="label" {...axisProps} />
           <YAxis {...axisProps} width={56} domain={AUTO} tickFormatter={tick(2)} />
           <Tooltip content={(p) => <FigureTooltip active={p.active} payload={p.payload} keys={keys} />} />
           <Legend wrapperStyle={legendStyle} />
           {series.benchmarks.map((b, i) => (
-            <ReferenceLine key={b.id} y={Number(b.value)} ifOverflow="extendDomain" stroke={i === 0 ? BROWN : SOFT} strokeDasharray="6 3" label={{ value: `${b.label.replace(/^IPCC Table 3\.1, /, "")} ${fixed(b.value, 3)}`, position: "insideTopLeft", fontSize: 10, fill: i === 0 ? BROWN : SOFT }} />
+            // Labels outside the plot, at the right end of their line, so none sits on the data.
+            <ReferenceLine key={b.id} y={Number(b.value)} ifOverflow="extendDomain" stroke={i === 0 ? BROWN : SOFT} strokeDasharray="6 3" label={{ value: `${b.label.replace(/^IPCC Table 3\.1, /, "").slice(0, 18)} ${fixed(b.value, 3)}`, position: "right", fontSize: 10, fill: i === 0 ? BROWN : SOFT }} />
           ))}
           <Line dataKey="co2e" name="CO2e" stroke={INK} strokeWidth={2} dot={{ r: 2.5 }} connectNulls={false} isAnimationActive={false} />
-          <Line dataKey="co2" name="Direct CO2" stroke={ACCENT} strokeWidth={1.5} strokeDasharray="4 2" dot={{ r: 2 }} connectNulls={false} isAnimationActive={false} />
+          <Line dataKey="co2" name="Direct CO2" stroke="none" legendType="square" dot={<SquareDot />} activeDot={<SquareDot />} connectNulls={false} isAnimationActive={false} />
         </LineChart>
       </ResponsiveContainer>
     </ChartFrame>
   );
+}
+
+/** A hollow square marker, told apart from the round dots of the CO2e line even where they overlap. */
+function SquareDot(props: { cx?: number; cy?: number }) {
+  if (props.cx === undefined || props.cy === undefined || Number.isNaN(props.cy)) return null;
+  return <rect x={props.cx - 4} y={props.cy - 4} width={8} height={8} fill="#ffffff" stroke={ACCENT} strokeWidth={1.5} />;
 }
 
 export function EnergyChart({ rows }: { rows: ChartRow[] }) {

@@ -22,7 +22,7 @@ export function SeriesTable({ series }: { series: YearSeries }) {
   const t = series.totals;
   const cell = "px-2.5 py-1 text-right num whitespace-nowrap";
   return (
-    <div className="overflow-x-auto border border-rule bg-white">
+    <div className="relative overflow-x-auto border border-rule bg-white" role="region" aria-label="Monthly figures" tabIndex={0}>
       <table className="w-full border-collapse text-sm">
         <caption className="px-2.5 py-1.5 text-left text-xs text-ink-soft">
           {series.site.name}, {series.year}: monthly figures from the stored months. Closure tolerance ±{series.tolerance_pct} %; H2:N2 against {series.h2_n2_target} : 1.

@@ -123,6 +123,7 @@ export function ImportWizard({ siteId, streams, saved }: Props) {
 
       {step === "file" && !busy ? (
         <StepFile
+          streams={streams}
           onSampled={(s) => {
             const proposal = proposeMapping(s, streams, saved);
             setSample(s);

@@ -22,7 +22,7 @@ export function IssuesTable({ issues, fileName }: { issues: ImportIssue[]; fileN
   };
   return (
     <div className="space-y-2">
-      <div className="overflow-x-auto border border-rule bg-white">
+      <div className="relative overflow-x-auto border border-rule bg-white" role="region" aria-label="Problems found" tabIndex={0}>
         <table className="w-full text-sm">
           <caption className="sr-only">Problems found in {fileName}</caption>
           <thead className="bg-paper-deep text-left text-xs text-ink-soft">

@@ -30,7 +30,7 @@ export function StepCheck({ preview: p, streams, confirmReplace, onConfirmReplac
     <div className="space-y-5">
       <p className="text-sm text-ink-soft">
         <span className="text-ink">{p.fileName}</span> · <span className="num">{formatBytes(p.sizeBytes)}</span> · {DELIMS[p.delimiter] ?? p.delimiter}-separated ·{" "}
-        <span className="num">{formatCount(p.rowCount)}</span> rows · <span className="num">{formatCount(p.valueCount)}</span> good values ·{" "}
+        <span className="num">{formatCount(p.rowCount)}</span> {p.rowCount === 1 ? "row" : "rows"} · <span className="num">{formatCount(p.valueCount)}</span> good {p.valueCount === 1 ? "value" : "values"} ·{" "}
         <span className="num">{p.months.length}</span> month{p.months.length === 1 ? "" : "s"}
       </p>
 

@@ -106,7 +106,7 @@ export function StepColumns({ sample, mapping, from, streams, onChange, onDelimi
         <h3 id={`${nameId}-sample`} className="text-sm font-medium">
           First rows of {sample.file.name}
         </h3>
-        <div className="mt-2 overflow-x-auto border border-rule bg-white">
+        <div className="relative mt-2 overflow-x-auto border border-rule bg-white" role="region" aria-label="The first rows of the file" tabIndex={0}>
           <table className="w-full text-sm">
             <thead className="bg-paper-deep text-left text-xs text-ink-soft">
               <tr>

@@ -144,7 +144,7 @@ export function LedgerGrid({ rows, roles, sites }: { rows: LedgerRow[]; roles: R
               </Link>
               <MonthStateBadge state={r.state} />
             </div>
-            <dl className="num mt-1 grid grid-cols-2 gap-x-3 text-xs">
+            <dl className="num mt-1 grid grid-cols-[auto_1fr] gap-x-3 text-xs [&_dd]:whitespace-nowrap">
               <dt className="text-ink-soft">NH3</dt>
               <dd className="text-right">{fixed(r.ammonia_t, 1)} t</dd>
               <dt className="text-ink-soft">C / N / H closure</dt>
@@ -167,7 +167,7 @@ export function LedgerGrid({ rows, roles, sites }: { rows: LedgerRow[]; roles: R
         ))}
       </ul>
 
-      <div className="hidden overflow-x-auto border border-rule bg-white sm:block">
+      <div className="relative hidden overflow-x-auto border border-rule bg-white sm:block" role="region" aria-label="Months of every site" tabIndex={0}>
         <table className="w-full border-collapse text-sm">
           <caption className="sr-only">Months of every site, newest first; column headers sort the table</caption>
           <thead>
@@ -183,7 +183,7 @@ export function LedgerGrid({ rows, roles, sites }: { rows: LedgerRow[]; roles: R
             {shown.map((row) => (
               <tr key={row.id} className={`border-b border-rule last:border-0 ${row.original.mine ? "bg-accent-wash/30" : ""}`}>
                 {row.getVisibleCells().map((cell) => (
-                  <td key={cell.id} className={`px-2 py-1.5 ${(cell.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric ? "text-right" : ""}`}>
+                  <td key={cell.id} className={`px-2 py-1.5 ${(cell.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric ? "text-right whitespace-nowrap" : ""}`}>
                     {flexRender(cell.column.columnDef.cell, cell.getContext())}
                   </td>
                 ))}

@@ -9,7 +9,8 @@ import { COMPONENTS } from "@/lib/balance/components";
 import { SUM_TOLERANCE_TEXT, analysisSum, type MonthFormValues } from "./month-values";
 import { formatDecimal } from "./number-format";
 
-const cell = "border border-rule-strong bg-white px-2 py-1 text-sm aria-[invalid=true]:border-fault aria-[invalid=true]:bg-fault-wash/40 disabled:bg-paper";
+const cell =
+  "border border-rule-strong bg-white px-2 py-1 text-base sm:text-sm aria-[invalid=true]:border-fault aria-[invalid=true]:bg-fault-wash/40 disabled:appearance-none disabled:border-transparent disabled:bg-transparent disabled:px-0 disabled:text-ink disabled:opacity-100";
 
 /**
  * One gas analysis: components in mol % (dry), the running sum, and what the engine will do
@@ -74,14 +75,14 @@ export function AnalysisEditor({ index, usedBy, previous, first, readOnly }: { i
                 <th scope="row" className="num py-1 pr-2 text-left font-normal">
                   <label htmlFor={id(ci)}>{f.component}</label>
                 </th>
-                <td className="w-32 px-2 py-1">
+                <td className="w-36 px-2 py-1">
                   <input
                     id={id(ci)}
                     data-analysis-first={first && ci === 0 ? "" : undefined}
                     inputMode="decimal"
                     autoComplete="off"
                     spellCheck={false}
-                    className={`${cell} num w-full text-right`}
+                    className={`${cell} num w-full min-w-[7.5rem] text-right`}
                     aria-invalid={cErr ? true : undefined}
                     aria-describedby={cErr ? `${id(ci)}-error` : undefined}
                     onKeyDown={onKeyDown(ci)}

@@ -15,7 +15,7 @@ function ClosureCell({ name, value, tolerance }: { name: string; value: string |
   return (
     <div>
       <dt className="text-xs text-ink-soft">{name}</dt>
-      <dd className="flex items-baseline gap-1.5">
+      <dd className="flex flex-wrap items-baseline gap-x-1.5">
         <QtyCell q={{ value: signed(value, 2), unit: "%" }} />
         <Status tone={value === null ? "info" : within ? "ok" : "warn"}>
           <span className="text-xs">{value === null ? "not stated" : within ? "within" : "outside"}</span>
@@ -67,6 +67,7 @@ export async function SiteYearCard({ organisationId, site, year }: { organisatio
           <p className="mt-1.5 text-sm text-ink-soft">
             Data: <span className="num text-ink">{s.completeness.present}</span> of <span className="num text-ink">{s.completeness.expected}</span> stream
             readings in {s.completeness.months} started months
+            {s.ytd.months_left_out_in_progress.length ? ` (${s.ytd.months_left_out_in_progress.join(", ")} in progress: readings so far)` : ""}
           </p>
         </div>
 
@@ -75,7 +76,7 @@ export async function SiteYearCard({ organisationId, site, year }: { organisatio
             Latest closures{s.latest ? <> · {s.latest.month}</> : null} · tolerance ±{fixed(tol, 1)} %
           </h3>
           {s.latest ? (
-            <dl className="mt-1 grid grid-cols-3 gap-2">
+            <dl className="mt-1 grid grid-cols-2 gap-2 min-[480px]:grid-cols-3">
               <ClosureCell name="Carbon" value={s.latest.closures.carbon} tolerance={tol} />
               <ClosureCell name="Nitrogen" value={s.latest.closures.nitrogen} tolerance={tol} />
               <ClosureCell name="Hydrogen" value={s.latest.closures.hydrogen} tolerance={tol} />

@@ -20,6 +20,7 @@ export function YearTotals({ model, series }: { model: AnnualStatementModel; ser
     ["CO2e intensity", model.totals.intensity, "t CO2e/t NH3"],
   ];
   return (
+    <div className="space-y-2">
     <dl className="grid gap-2 sm:grid-cols-3">
       {cells.map(([label, value, unit, note]) => (
         <div key={label} className={STAT}>
@@ -30,12 +31,13 @@ export function YearTotals({ model, series }: { model: AnnualStatementModel; ser
           </dd>
         </div>
       ))}
-      <p className="text-xs text-ink-soft sm:col-span-3">
+    </dl>
+      <p className="text-xs text-ink-soft">
         {series.totals.months_included.length} of 12 months counted
         {series.totals.months_left_out_in_progress.length ? ` (${series.totals.months_left_out_in_progress.join(", ")} in progress, left out: provisional)` : ""}. Uncertainty at 95 %: meter errors taken as independent month to
         month, factor errors as fully correlated across months.
       </p>
-    </dl>
+    </div>
   );
 }
 

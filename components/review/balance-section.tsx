@@ -6,7 +6,11 @@ import type { ResultDocument } from "@/lib/balance/result";
 import { exact, fixed, signed } from "@/reports/format";
 import type { MonthlyStatementModel } from "@/reports/model";
 import { Decimal } from "decimal.js";
+import { namedSuspects } from "@/lib/balance/suspects";
 import { BalanceBeam } from "./balance-beam";
+
+/** Decimals a figure was written with ("42792.4" → 1), at most 3. */
+const decimalsOf = (v: string | null) => Math.min(3, v && v.includes(".") ? v.split(".")[1].length : 0);
 import { FigureTable, MarkText, QtyCell, Section } from "./figure-table";
 
 export interface StreamName {
@@ -26,6 +30,7 @@ export function BalanceSection({ doc, model, tolerance, streams }: { doc: Result
   const rows = model.balances;
   const rec = doc.reconciliation;
   const byKey = new Map(streams.map((s) => [s.key, s]));
+  const named = namedSuspects(rec?.streams);
   return (
     <>
       <Section
@@ -73,14 +78,17 @@ export function BalanceSection({ doc, model, tolerance, streams }: { doc: Result
                 { title: "Stream", cell: (r) => <span>{byKey.get(r.id)?.name ?? r.id}</span> },
                 { title: "Meter", cell: (r) => <span className="num text-xs">{byKey.get(r.id)?.meterTag ?? "—"}</span> },
                 { title: "Measured", numeric: true, cell: (r) => <QtyCell q={{ value: exact(r.measured), unit: byKey.get(r.id)?.unit ?? "" }} /> },
-                { title: "Reconciled", numeric: true, cell: (r) => <QtyCell q={{ value: fixed(r.reconciled, 0), unit: byKey.get(r.id)?.unit ?? "" }} /> },
+                // Reconciled to the decimals the meter's own reading was given with, so the two read side by side.
+                { title: "Reconciled", numeric: true, cell: (r) => <QtyCell q={{ value: fixed(r.reconciled, decimalsOf(r.measured)), unit: byKey.get(r.id)?.unit ?? "" }} /> },
                 { title: "Adjustment", numeric: true, cell: (r) => <QtyCell q={{ value: signed(r.adjustment_pct, 2), unit: "%" }} /> },
                 { title: `Test (limit ${fixed(rec.z_critical, 2)})`, numeric: true, cell: (r) => <span className="num">{fixed(r.test_statistic, 2)}</span> },
                 {
                   title: "Verdict",
                   cell: (r) =>
-                    r.suspect ? (
-                      <MarkText mark="attention">Suspect meter</MarkText>
+                    named.includes(r.id) ? (
+                      <MarkText mark="attention">Most likely wrong</MarkText>
+                    ) : r.suspect ? (
+                      <MarkText mark="info">Moved by the meter that is off</MarkText>
                     ) : r.redundancy === "redundant" ? (
                       <MarkText mark="ok">Consistent</MarkText>
                     ) : (

@@ -27,7 +27,7 @@ export interface Column<R> {
 /** A dense, print-friendly table: numbers right-aligned, header units in the column titles. */
 export function FigureTable<R>({ caption, columns, rows, empty = "Nothing to show." }: { caption?: string; columns: Column<R>[]; rows: R[]; empty?: string }) {
   return (
-    <div className="overflow-x-auto border border-rule bg-white">
+    <div className="relative overflow-x-auto border border-rule bg-white" role="region" aria-label={caption ?? "Figures"} tabIndex={0}>
       <table className="w-full border-collapse text-sm">
         {caption ? <caption className="sr-only">{caption}</caption> : null}
         <thead>

@@ -34,7 +34,7 @@ export function EmissionsSections({ m, explain }: { m: MonthlyStatementModel; ex
           ]}
           rows={m.emissionsByGas}
         />
-        <dl className="grid grid-cols-1 gap-3 border border-rule bg-white px-4 py-3 sm:grid-cols-3">
+        <div className="grid grid-cols-1 gap-3 border border-rule bg-white px-4 py-3 sm:grid-cols-3">
           {(
             [
               ["Gross CO2", m.co2.gross],
@@ -43,14 +43,14 @@ export function EmissionsSections({ m, explain }: { m: MonthlyStatementModel; ex
             ] as const
           ).map(([label, q]) => (
             <div key={label}>
-              <dt className="text-xs text-ink-soft">{label}</dt>
-              <dd className="text-lg">
+              <p className="text-xs text-ink-soft">{label}</p>
+              <p className="text-lg">
                 <QtyCell q={q} strong={label === "Net CO2"} />
-              </dd>
+              </p>
             </div>
           ))}
           <p className="text-xs text-ink-soft sm:col-span-3">{m.co2.deductionNote}</p>
-        </dl>
+        </div>
       </Section>
 
       <Section id="intensities" title="Intensities against benchmarks">

@@ -14,7 +14,7 @@ export interface SiteOption {
  * Picks the site and month to work on. It navigates on "Open" rather than on every change, so
  * keyboard users can move through the options without being carried off mid-choice.
  */
-export function ContextSwitcher({ sites, defaultMonth }: { sites: SiteOption[]; defaultMonth: string }) {
+export function ContextSwitcher({ sites, defaultMonth, idPrefix = "ctx" }: { sites: SiteOption[]; defaultMonth: string; idPrefix?: string }) {
   const params = useParams<{ siteId?: string; month?: string }>();
   const search = useSearchParams();
   const router = useRouter();
@@ -56,14 +56,14 @@ export function ContextSwitcher({ sites, defaultMonth }: { sites: SiteOption[]; 
   return (
     <form onSubmit={open} className="flex flex-wrap items-end gap-2" aria-label="Site and month">
       <div>
-        <label htmlFor="ctx-site" className="block text-xs text-ink-soft">
+        <label htmlFor={`${idPrefix}-site`} className="block text-xs text-ink-soft">
           Site
         </label>
         <select
-          id="ctx-site"
+          id={`${idPrefix}-site`}
           value={siteId}
           onChange={(e) => setSiteId(e.target.value)}
-          className="mt-0.5 border border-rule-strong bg-white px-2 py-1 text-sm"
+          className="mt-0.5 w-full min-w-40 border border-rule-strong bg-white px-2 py-1 text-sm sm:w-auto"
         >
           {sites.map((s) => (
             <option key={s.id} value={s.id}>
@@ -73,26 +73,26 @@ export function ContextSwitcher({ sites, defaultMonth }: { sites: SiteOption[]; 
         </select>
       </div>
       <div>
-        <label htmlFor="ctx-month" className="block text-xs text-ink-soft">
+        <label htmlFor={`${idPrefix}-month`} className="block text-xs text-ink-soft">
           Month
         </label>
         <input
-          id="ctx-month"
+          id={`${idPrefix}-month`}
           type="month"
           value={month}
           min="2000-01"
           max="2100-12"
           onChange={(e) => setMonth(e.target.value)}
           aria-invalid={error ? true : undefined}
-          aria-describedby={error ? "ctx-month-error" : undefined}
-          className="num mt-0.5 border border-rule-strong bg-white px-2 py-[3px] text-sm"
+          aria-describedby={error ? `${idPrefix}-month-error` : undefined}
+          className="num mt-0.5 w-full min-w-36 border border-rule-strong bg-white px-2 py-[3px] text-sm sm:w-auto"
         />
       </div>
       <button type="submit" className={`${buttonSecondary} py-1`}>
         Open month
       </button>
       {error ? (
-        <p id="ctx-month-error" role="alert" className="w-full text-xs text-fault">
+        <p id={`${idPrefix}-month-error`} role="alert" className="w-full text-xs text-fault">
           {error}
         </p>
       ) : null}

@@ -20,8 +20,11 @@ export function SiteViewsNav({ sites }: { sites: SiteOption[] }) {
     { href: `${base}/what-if`, label: "What-if", match: `${base}/what-if` },
   ];
   return (
-    <nav aria-label={`Views of ${site.name}`} className="-mb-px flex flex-wrap items-end gap-x-1 border-l border-rule pl-2">
-      <span className="px-1 pb-2 text-xs text-ink-faint">{site.code}</span>
+    <nav aria-label={`Views of ${site.name}`} className="relative -mb-px flex min-w-0 max-w-full items-end gap-x-1 overflow-x-auto whitespace-nowrap border-l border-rule pl-2">
+      <span className="shrink-0 px-1 pb-2 text-sm text-ink-soft">
+        {site.name}
+        <span aria-hidden="true">:</span>
+      </span>
       {items.map((i) => {
         const current = pathname === i.match || pathname.startsWith(`${i.match}/`);
         return (
@@ -29,7 +32,7 @@ export function SiteViewsNav({ sites }: { sites: SiteOption[] }) {
             key={i.href}
             href={i.href}
             aria-current={current ? "page" : undefined}
-            className={`border-b-2 px-2.5 py-2 text-sm ${current ? "border-accent font-medium text-ink" : "border-transparent text-ink-soft hover:border-rule-strong hover:text-ink"}`}
+            className={`shrink-0 border-b-2 px-2.5 py-2 text-sm ${current ? "border-accent font-medium text-ink" : "border-transparent text-ink-soft hover:border-rule-strong hover:text-ink"}`}
           >
             {i.label}
           </Link>

@@ -34,7 +34,7 @@ export function FilterableTable<Row extends { archived: boolean }>({ rows, colum
   return (
     <div className="space-y-2">
       <TableFilter table={table} id={filterId} label="Filter" placeholder={placeholder} />
-      <div className="overflow-x-auto border border-rule bg-white">
+      <div className="relative overflow-x-auto border border-rule bg-white" role="region" aria-label={caption} tabIndex={0}>
         <table className="w-full border-collapse text-sm">
           <caption className="sr-only">{caption}</caption>
           <thead>

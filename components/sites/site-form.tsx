@@ -39,7 +39,7 @@ export function SiteForm({ siteId, defaults }: { siteId?: string; defaults: Site
       }
       form.reset(values);
       // A new site goes straight to its own page, where its streams are added next.
-      if (!siteId && r.data && typeof r.data === "object" && "id" in r.data) router.push(`/settings/sites/${String(r.data.id)}`);
+      if (!siteId && r.data && typeof r.data === "object" && "id" in r.data) router.push(`/settings/sites/${String(r.data.id)}?created=1`);
     }),
   );
 

@@ -2,7 +2,7 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
-import { useEffect, useMemo, useState, useTransition } from "react";
+import { useEffect, useMemo, useRef, useState, useTransition } from "react";
 import { useForm, useWatch, type Path } from "react-hook-form";
 import { createStream, editStream } from "@/app/(app)/settings/sites/actions";
 import { Notice } from "@/components/ui/status";
@@ -28,8 +28,13 @@ export function StreamForm({ siteId, streamId, defaults, analysisKeys }: { siteI
   const units = useMemo(() => UNITS_BY_KIND[kind] ?? [], [kind]);
   const err = (k: keyof StreamInput) => formState.errors[k]?.message;
 
+  // A new kind starts from its usual unit (a feed-gas stream in Sm3, not the tonnes an ammonia stream had);
+  // on first load the stored unit stays.
+  const loadedKind = useRef(defaults.kind);
   useEffect(() => {
-    if (!units.includes(getValues("unit") as Unit)) setValue("unit", units[0] ?? "");
+    const changed = kind !== loadedKind.current;
+    loadedKind.current = kind;
+    if (changed || !units.includes(getValues("unit") as Unit)) setValue("unit", units[0] ?? "", { shouldDirty: changed });
     if (!MAY_HAVE_ANALYSIS.includes(kind)) setValue("analysisKey", "");
     if (kind !== "purge-gas") setValue("fate", "");
     if (kind !== "co2-export") setValue("destination", "");

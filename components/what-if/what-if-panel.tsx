@@ -112,7 +112,7 @@ export function WhatIfPanel({
           </div>
         ) : null}
         {outcome ? (
-          <div className="overflow-x-auto border border-rule bg-white">
+          <div className="relative overflow-x-auto border border-rule bg-white" role="region" aria-label="What-if figures" tabIndex={0}>
             <table className="w-full border-collapse text-sm" aria-live="polite">
               <caption className="px-3 py-1.5 text-left text-xs text-ink-soft">
                 {outcome.months.length === 1 ? outcome.months[0] : `${outcome.months.length} months`}: recorded against what-if

@@ -7,7 +7,7 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 /** Active sites of one organisation, by name. */
 export async function listSites(db: Db | Tx, organisationId: string) {
   return db
-    .select({ id: sites.id, name: sites.name, code: sites.code })
+    .select({ id: sites.id, name: sites.name, code: sites.code, createdAt: sites.createdAt })
     .from(sites)
     .where(and(eq(sites.organisationId, organisationId), isNull(sites.archivedAt)))
     .orderBy(asc(sites.name));

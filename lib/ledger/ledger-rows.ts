@@ -73,7 +73,12 @@ export async function ledgerRows(db: Db, organisationId: string, now = new Date(
       tolerance = y.site.closureTolerancePct;
       for (const m of seriesOf(y, now).months) byMonth.set(m.month, m);
     }
-    for (const month of months) {
+    // From the site's first month on (its first stored month, or the month it was set up): earlier
+    // months were never the site's to fill, and listing them as "not started" would be noise.
+    const firstStored = [...byMonth.values()].filter((m) => m.state !== null).map((m) => m.month).sort()[0];
+    const setUp = `${site.createdAt.getUTCFullYear()}-${String(site.createdAt.getUTCMonth() + 1).padStart(2, "0")}`;
+    const first = firstStored && firstStored < setUp ? firstStored : setUp;
+    for (const month of months.filter((m) => m >= first)) {
       const m = byMonth.get(month);
       const timing = monthTiming(month, now).kind;
       const state = (m?.state ?? null) as MonthState | null;

@@ -34,10 +34,11 @@ export async function setUpSite(k: E2eKit, page: Page, site: Omit<JourneySite, "
   await page.getByLabel("Balance tolerance (%)").fill("2");
   await page.getByLabel("Emissions method").selectOption({ label: "Carbon mass balance" });
   await page.getByRole("button", { name: "Set up site" }).click();
-  await page.waitForURL(/\/settings\/sites\/[0-9a-f-]{36}$/, { timeout: 20_000 });
-  await page.getByRole("heading", { name: site.name }).waitFor();
+  await page.waitForURL(/\/settings\/sites\/[0-9a-f-]{36}\?created=1$/, { timeout: 20_000 });
+  await page.getByRole("heading", { name: site.name, exact: true }).waitFor();
+  await page.getByText(`${site.name} is set up`).waitFor();
   await page.getByText("No streams yet").waitFor();
-  const id = /\/settings\/sites\/([0-9a-f-]{36})$/.exec(page.url())?.[1];
+  const id = /\/settings\/sites\/([0-9a-f-]{36})\?created=1$/.exec(page.url())?.[1];
   assert(id, `no site id in ${page.url()}`);
   return id;
 }

@@ -13,6 +13,7 @@ import { overviewChecks } from "./overview";
 import { securityChecks } from "./security";
 import { lifecycleChecks } from "./lifecycle";
 import { journeyChecks } from "./journey";
+import { widthChecks } from "./widths";
 
 const BASE = (process.env.E2E_BASE_URL ?? "http://127.0.0.1:3000").replace(/\/+$/, "");
 const OUT = "test-results/e2e";
@@ -167,6 +168,8 @@ async function main(): Promise<void> {
     await overviewChecks({ browser, base: BASE, viewport, check, assert, shot, signIn });
 
     await journeyChecks({ browser, base: BASE, out: OUT, viewport, check, assert, shot, signIn });
+
+    await widthChecks(browser, { base: BASE, out: OUT, viewport, check, assert, shot, signIn });
 
     await securityChecks({ browser, base: BASE, check, assert });
   } finally {

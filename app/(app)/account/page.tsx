@@ -36,7 +36,7 @@ export default async function AccountPage() {
           Where you are signed in <span className="num font-normal text-ink-soft">({sessions.length})</span>
         </h2>
         <p className="mt-0.5 text-sm text-ink-soft">Each sign-in is a session until it signs out. End any you do not recognise; it stops working at its next request.</p>
-        <div className="mt-3 overflow-x-auto border border-rule bg-white">
+        <div className="relative mt-3 overflow-x-auto border border-rule bg-white" role="region" aria-label="Sessions" tabIndex={0}>
           <table className="w-full text-left text-sm">
             <thead className="border-b border-rule bg-paper-deep text-xs uppercase tracking-wide text-ink-soft">
               <tr>

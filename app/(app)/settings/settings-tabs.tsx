@@ -10,7 +10,7 @@ const TABS = [
 /** Sub-navigation of the settings area (administrators only). */
 export function SettingsTabs({ current }: { current: (typeof TABS)[number]["key"] }) {
   return (
-    <nav aria-label="Settings sections" className="mt-3 flex gap-1 overflow-x-auto border-b border-rule">
+    <nav aria-label="Settings sections" className="relative mt-3 flex gap-1 overflow-x-auto border-b border-rule">
       {TABS.map((t) => (
         <Link
           key={t.key}

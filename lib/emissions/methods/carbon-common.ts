@@ -34,7 +34,7 @@ export function notePurgeInternal(input: EmissionsInput, flags: Flag[]): void {
   for (const s of streamsOf(input, "purge-gas")) {
     if (s.fate === "fuel" || s.fate === "flare") {
       flags.push({ code: "purge-carbon-counted-in-feed", severity: "info",
-        message: `Purge ${s.id} (${s.fate}): its carbon entered with the feed gas and is counted there once.` });
+        message: `The purge gas (stream ${s.id}) is ${s.fate === "fuel" ? "burnt as fuel" : "flared"}: its carbon entered with the feed gas and is counted there once.` });
     }
   }
 }

@@ -56,7 +56,7 @@ export default async function ApiTokensPage() {
             </EmptyState>
           </div>
         ) : (
-          <div className="mt-3 overflow-x-auto border border-rule bg-white">
+          <div className="relative mt-3 overflow-x-auto border border-rule bg-white" role="region" aria-label="API tokens" tabIndex={0}>
             <table className="w-full text-left text-sm">
               <thead className="border-b border-rule bg-paper-deep text-xs uppercase tracking-wide text-ink-soft">
                 <tr>

@@ -40,7 +40,7 @@ export default async function UsersPage() {
           Members of {actor.organisationName} <span className="num font-normal text-ink-soft">({members.length})</span>
         </h2>
         <p className="mt-0.5 text-sm text-ink-soft">Roles apply to every site of the organisation. A person may hold several.</p>
-        <div className="mt-3 overflow-x-auto border border-rule bg-white">
+        <div className="relative mt-3 overflow-x-auto border border-rule bg-white" role="region" aria-label="Members" tabIndex={0}>
           <table className="w-full text-left text-sm">
             <thead className="border-b border-rule bg-paper-deep text-xs uppercase tracking-wide text-ink-soft">
               <tr>
@@ -93,7 +93,7 @@ export default async function UsersPage() {
         {invitations.length === 0 ? (
           <p className="mt-1 text-sm text-ink-soft">No invitations sent yet. Invitations you send appear here with their state until they are used.</p>
         ) : (
-          <div className="mt-3 overflow-x-auto border border-rule bg-white">
+          <div className="relative mt-3 overflow-x-auto border border-rule bg-white" role="region" aria-label="Invitations" tabIndex={0}>
             <table className="w-full text-left text-sm">
               <thead className="border-b border-rule bg-paper-deep text-xs uppercase tracking-wide text-ink-soft">
                 <tr>

@@ -6,7 +6,7 @@ import { SiteForm } from "@/components/sites/site-form";
 import { StreamsDataTable } from "@/components/sites/streams-table/data-table";
 import { StreamsEmptyState } from "@/components/sites/streams-table/empty-state";
 import { ArrowLeftIcon } from "@/components/ui/icons";
-import { Status } from "@/components/ui/status";
+import { Notice, Status } from "@/components/ui/status";
 import { buttonPrimary, link, pageTitle } from "@/components/ui/styles";
 import { getDb } from "@/db";
 import { findSite } from "@/db/queries/sites";
@@ -17,8 +17,9 @@ import { requirePageActor } from "@/lib/auth/guard";
 
 export const metadata: Metadata = { title: "Site set-up" };
 
-export default async function SiteSettingsPage({ params }: { params: Promise<{ siteId: string }> }) {
+export default async function SiteSettingsPage({ params, searchParams }: { params: Promise<{ siteId: string }>; searchParams: Promise<{ created?: string }> }) {
   const { siteId } = await params;
+  const { created } = await searchParams;
   const actor = await requirePageActor("site:manage");
   const db = getDb();
   const site = await findSite(db, actor.organisationId, siteId);
@@ -40,6 +41,11 @@ export default async function SiteSettingsPage({ params }: { params: Promise<{ s
           <ArchiveSiteButton siteId={site.id} archived={site.archivedAt !== null} />
         </div>
       </div>
+      {created ? (
+        <Notice tone="ok" title={`${site.name} is set up`}>
+          Add its streams below: each metered flow crossing the site boundary, with its kind, unit and meter.
+        </Notice>
+      ) : null}
       <section aria-labelledby="site-settings" className="max-w-4xl border border-rule bg-white p-5">
         <h2 id="site-settings" className="mb-3 text-base font-semibold">
           Site settings
