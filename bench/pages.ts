@@ -26,6 +26,7 @@ export interface PageTarget {
 export async function timePages(base: string, email: string, password: string, targets: PageTarget[]): Promise<PageFigure[]> {
   const browser = await chromium.launch({
     executablePath: CHROMIUM,
+    timeout: 60_000,
     args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
   });
   try {
@@ -38,6 +39,7 @@ export async function timePages(base: string, email: string, password: string, t
     await page.waitForURL((u) => !u.pathname.startsWith("/sign-in"));
     const out: PageFigure[] = [];
     for (const t of targets) {
+      console.log(`[bench] timing page ${t.label} (${t.path})`);
       const times: number[] = [];
       for (let i = 0; i <= RUNS; i++) {
         const started = Date.now();

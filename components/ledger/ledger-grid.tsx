@@ -1,6 +1,6 @@
 "use client";
 
-import { createColumnHelper, flexRender, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import { createColumnHelper, flexRender, getCoreRowModel, getFilteredRowModel, getPaginationRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
 import Link from "next/link";
 import { useMemo, useState } from "react";
 import { SortableHeader } from "@/components/sites/table-parts";
@@ -29,6 +29,9 @@ function Closure({ value, tolerance }: { value: string | null; tolerance: string
     </span>
   );
 }
+
+const PAGE_SIZE = 50;
+const pagerButton = "border border-rule-strong bg-white px-2.5 py-1 text-ink hover:bg-paper-deep disabled:cursor-not-allowed disabled:text-ink-faint";
 
 const h = createColumnHelper<LedgerRow & { mine: boolean }>();
 
@@ -100,8 +103,27 @@ export function LedgerGrid({ rows, roles, sites }: { rows: LedgerRow[]; roles: R
     getCoreRowModel: getCoreRowModel(),
     getSortedRowModel: getSortedRowModel(),
     getFilteredRowModel: getFilteredRowModel(),
+    // Fifty months a page: a fleet's ledger runs to hundreds of rows, and a page of them reads (and renders) faster.
+    getPaginationRowModel: getPaginationRowModel(),
+    initialState: { pagination: { pageIndex: 0, pageSize: PAGE_SIZE } },
   });
   const shown = table.getRowModel().rows;
+  const { pageIndex } = table.getState().pagination;
+  const total = table.getPrePaginationRowModel().rows.length;
+  const pager =
+    total > PAGE_SIZE ? (
+      <nav className="flex flex-wrap items-center gap-2 text-sm" aria-label="Pages of months">
+        <span className="num text-ink-soft" aria-live="polite">
+          Months {pageIndex * PAGE_SIZE + 1}–{Math.min(total, (pageIndex + 1) * PAGE_SIZE)} of {total}
+        </span>
+        <button type="button" className={pagerButton} onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>
+          Previous page
+        </button>
+        <button type="button" className={pagerButton} onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>
+          Next page
+        </button>
+      </nav>
+    ) : null;
   const chip = (f: Filter, text: string) => (
     <button
       type="button"
@@ -193,6 +215,7 @@ export function LedgerGrid({ rows, roles, sites }: { rows: LedgerRow[]; roles: R
         </table>
       </div>
       {shown.length === 0 ? <p className="text-sm text-ink-soft">No month matches this choice.</p> : null}
+      {pager}
     </div>
   );
 }

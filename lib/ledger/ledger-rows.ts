@@ -9,6 +9,7 @@ import { listSites } from "@/db/queries/sites";
 import type { Role } from "@/lib/auth/roles";
 import { currentMonthKey, monthTiming } from "@/lib/period";
 import { STATE_LABELS, type MonthState } from "@/lib/lifecycle/transitions";
+import { mapLimited } from "@/lib/concurrency";
 import { loadSiteYear, seriesOf } from "./site-year";
 import type { SeriesMonth } from "./series";
 
@@ -62,13 +63,15 @@ function monthsBack(last: string, count: number): string[] {
 export async function ledgerRows(db: Db, organisationId: string, now = new Date()): Promise<{ rows: LedgerRow[]; months: string[] }> {
   const months = monthsBack(currentMonthKey(now), 13);
   const years = [...new Set(months.map((m) => m.slice(0, 4)))];
+  const inWindow = new Set(months);
   const sites = await listSites(db, organisationId);
+  // Four sites at a time: their queries overlap while leaving pooled connections for other requests.
+  const loaded = await mapLimited(sites, 4, (site) => Promise.all(years.map((year) => loadSiteYear(db, organisationId, site.id, year, inWindow))));
   const rows: LedgerRow[] = [];
-  for (const site of sites) {
+  for (const [i, site] of sites.entries()) {
     const byMonth = new Map<string, SeriesMonth>();
     let tolerance = "2";
-    for (const year of years) {
-      const y = await loadSiteYear(db, organisationId, site.id, year);
+    for (const y of loaded[i]) {
       if (!y) continue;
       tolerance = y.site.closureTolerancePct;
       for (const m of seriesOf(y, now).months) byMonth.set(m.month, m);

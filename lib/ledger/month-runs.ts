@@ -90,7 +90,8 @@ export type StoredMonthRun =
  * result can never be served, while a page that reads twelve unchanged months twice does not
  * compute them twice. Bounded so a long-running server does not grow without end.
  */
-const CACHE_MAX = 600;
+// 2 000 runs cover the ledger of a 150-site organisation (13 months each) at a few tens of MB.
+const CACHE_MAX = 2000;
 const g = globalThis as unknown as { __synledgerRunCache?: Map<string, MonthCalculation> };
 const cache = (g.__synledgerRunCache ??= new Map());
 

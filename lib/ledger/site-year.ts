@@ -20,14 +20,25 @@ export interface SiteYear {
   frozen: Map<string, FrozenFacts>;
 }
 
-export async function loadSiteYear(db: Db | Tx, organisationId: string, siteId: string, year: string): Promise<SiteYear | null> {
+/**
+ * `only` limits which months are computed (the ledger's thirteen-month window spans two years and
+ * needs no more); the year's roll-up is then of those months only, so callers that read totals
+ * leave it out.
+ */
+export async function loadSiteYear(
+  db: Db | Tx,
+  organisationId: string,
+  siteId: string,
+  year: string,
+  only?: ReadonlySet<string>,
+): Promise<SiteYear | null> {
   const rows = await loadSiteYearRows(db, organisationId, siteId, year);
   if (!rows) return null;
   const { site, streams } = rows;
   const active = new Set(streams.filter((s) => s.archivedAt === null).map((s) => s.id));
   const frozen = new Map<string, FrozenFacts>();
 
-  const runs: MonthRun[] = rows.months.map((m) => {
+  const runs: MonthRun[] = rows.months.filter((m) => !only || only.has(m.period)).map((m) => {
     const monthReadings = rows.readings.filter((r) => r.monthId === m.id);
     const base = {
       id: m.id,

@@ -1,0 +1,16 @@
+/**
+ * Maps with at most `limit` calls in flight, results in input order: for pages that read many
+ * sites, so their queries overlap without taking every pooled connection at once.
+ */
+export async function mapLimited<T, R>(items: readonly T[], limit: number, fn: (item: T, index: number) => Promise<R>): Promise<R[]> {
+  const out = new Array<R>(items.length);
+  let next = 0;
+  const worker = async () => {
+    while (next < items.length) {
+      const i = next++;
+      out[i] = await fn(items[i], i);
+    }
+  };
+  await Promise.all(Array.from({ length: Math.max(1, Math.min(limit, items.length)) }, worker));
+  return out;
+}
