@@ -13,7 +13,8 @@ export const authConfig = {
   callbacks: {
     authorized({ auth, request }) {
       const path = request.nextUrl.pathname;
-      const open = path === "/sign-in" || path.startsWith("/invitations/") || path.startsWith("/api/");
+      // Statement verification is public: whoever holds a copy checks it without an account.
+      const open = path === "/sign-in" || path === "/verify" || path.startsWith("/verify/") || path.startsWith("/invitations/") || path.startsWith("/api/");
       if (open) return true;
       return !!auth?.user;
     },

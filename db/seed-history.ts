@@ -1,8 +1,11 @@
 import { and, eq } from "drizzle-orm";
+import { runOfSnapshot } from "@/lib/ledger/month-runs";
 import { transitionMonth, type LifecycleActor } from "@/lib/lifecycle/service";
+import { unconfirmedKeys } from "@/lib/lifecycle/sign";
 import type { TransitionName } from "@/lib/lifecycle/transitions";
 import type { Db } from "./client";
 import { DEMO_USERS } from "./demo-users";
+import { latestSnapshot } from "./queries/snapshots";
 import { findUserByEmail } from "./queries/users";
 import { months, organisations, sites } from "./schema";
 
@@ -48,11 +51,15 @@ export async function seedDemoHistory(db: Db, organisationId: string): Promise<v
     for (const step of item.steps) {
       const actor = actors.get(BY_STEP[step]);
       if (!actor) break;
+      // The demo signatory declares as a real one must: every unconfirmed value of the frozen record acknowledged.
+      const snap = step === "sign" ? await latestSnapshot(db, month.id, month.revision) : null;
+      const declared = snap ? { declaration: true, acknowledged: unconfirmedKeys(runOfSnapshot(snap).doc) } : {};
       const out = await transitionMonth(db, actor, {
         siteId: site.id,
         period: item.period,
         transition: step,
         expectedVersion: version,
+        ...declared,
         ...(step === "record-submission" ? { reference: `EA-VN-${item.period.replace("-", "")}-014`, submittedOn: `2026-${String(Number(item.period.slice(5)) + 1).padStart(2, "0")}-12` } : {}),
       });
       version = out.version;

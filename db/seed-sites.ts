@@ -54,6 +54,7 @@ async function seedSite(tx: Tx, organisationId: string, site: DemoSite): Promise
       factorSet: site.method.factor_set,
       emissionsMethod: site.method.emissions,
       gwp: site.method.gwp,
+      installation: site.installation,
     })
     .returning();
   await recordAudit(tx, seedAudit(organisationId, row.id, "site.created", "site", row.id, { name: site.name, code: site.key }));
@@ -98,7 +99,8 @@ async function seedSite(tx: Tx, organisationId: string, site: DemoSite): Promise
       .returning();
     for (const [key, a] of Object.entries(doc.analyses)) {
       const components = Object.fromEntries(Object.entries(a.components).map(([c, v]) => [c, v.toFixed()]));
-      await tx.insert(gasAnalyses).values({ monthId: m.id, key, components, laboratory: "Site laboratory (demo)" });
+      // Sampled on the first of the month (the running month has at least that day behind it).
+      await tx.insert(gasAnalyses).values({ monthId: m.id, key, components, sampledOn: `${doc.month}-01`, laboratory: `${site.name} laboratory` });
     }
     await tx.insert(readings).values(
       doc.streams.map((s) => ({

@@ -1,6 +1,6 @@
 import { Document, Page, Text } from "@react-pdf/renderer";
 import type { AnnualMonthRow, AnnualSourceRow, AnnualStatementModel } from "./model";
-import { CautionsBlock, FlagsBlock, GasTable, IntensityBlock, MethodBlock, RevisionsBlock, SignOffBlock, UncertaintyBlock } from "./parts/blocks";
+import { CautionsBlock, DeclarationBlock, FlagsBlock, GasTable, InstallationBlock, IntensityBlock, MethodBlock, RevisionsBlock, UncertaintyBlock } from "./parts/blocks";
 import { Footer, RunningHead, TitleBlock } from "./parts/frame";
 import { DataTable, Section } from "./parts/primitives";
 import { styles } from "./parts/theme";
@@ -14,19 +14,20 @@ export function AnnualStatement({ model: m }: { model: AnnualStatementModel }) {
   const total: YearRow = { ...m.totals, month: "Year", revision: "", status: "" };
   return (
     <Document
-      title={`Annual GHG statement ${h.siteCode} ${h.period} rev ${h.revision}`}
+      title={`Annual greenhouse-gas statement, ${h.siteName}, ${h.period}, revision ${h.revision}`}
       author={h.organisation}
       subject={`Greenhouse-gas statement, ${h.siteName}, ${h.periodLabel}`}
       creator="Synledger"
       producer="Synledger"
+      language="en-GB"
     >
       <Page size="A4" style={styles.page}>
         <RunningHead h={h} kind="Annual statement" />
         <Footer verifyAt={m.signOff.verifyAt} />
         <TitleBlock h={h} title="Annual greenhouse-gas statement" />
-        <MethodBlock n="1" m={m.method} />
+        <InstallationBlock i={h.installation} />
 
-        <Section n="2" title="Months of the year">
+        <Section n="1" title="Months of the year">
           <DataTable<YearRow>
             columns={[
               { title: "Month", flex: 1.6, cell: (r) => r.month ?? "" },
@@ -42,7 +43,11 @@ export function AnnualStatement({ model: m }: { model: AnnualStatementModel }) {
             rows={m.months}
             total={total}
           />
+          <Text style={[styles.small, styles.muted, { marginTop: 3 }]}>Each month is also a signed statement of its own, at the revision shown (section 3).</Text>
         </Section>
+        <DeclarationBlock s={m.signOff} unconfirmed={m.unconfirmedCount} />
+
+        <MethodBlock n="2" m={m.method} breakBefore />
 
         <Section n="3" title="Monthly statements this statement adds up">
           <DataTable<AnnualSourceRow>
@@ -66,10 +71,6 @@ export function AnnualStatement({ model: m }: { model: AnnualStatementModel }) {
         <FlagsBlock n="7" rows={m.flags} />
         <RevisionsBlock n="8" rows={m.revisions} />
         <CautionsBlock items={m.cautions} />
-        <SignOffBlock s={m.signOff} />
-        <Text style={[styles.small, styles.muted, { marginTop: 6 }]}>
-          Each month above is also a signed statement of its own, at the revision shown.
-        </Text>
       </Page>
     </Document>
   );

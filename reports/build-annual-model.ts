@@ -9,7 +9,9 @@ import { uncertaintyJson } from "@/lib/balance/result-emissions";
 import type { YearResult } from "@/lib/emissions/year";
 import { endedRuns, type MonthRun, type YearBenchmark } from "@/lib/ledger/year";
 import { hasEnded } from "@/lib/period";
-import { flagRows, meteringLabel, methodSection, revisionRows, uncertaintyRow, type RevisionFact } from "@/reports/build-model-parts";
+import type { InstallationIdentity } from "@/lib/validations/installation";
+import { declarationText, installationFacts } from "@/reports/build-model";
+import { flagRows, meteringLabel, methodSection, revisionRows, uncertaintyRow, unconfirmedRows, type RevisionFact } from "@/reports/build-model-parts";
 import { DASH, compare, fixed, monthLabel, percentOver, small, utcStamp } from "@/reports/format";
 import { STATEMENT_CAUTIONS, type AnnualStatementModel, type GasRow, type IntensityRow } from "@/reports/model";
 
@@ -17,7 +19,7 @@ const STATE_LABEL: Record<string, string> = { open: "Open", balanced: "Balanced"
 
 export interface AnnualModelInput {
   organisation: string;
-  site: { name: string; code: string; meteringReference: string };
+  site: { name: string; code: string; meteringReference: string; installation?: InstallationIdentity | null };
   year: string;
   revision: number;
   statementRef: string;
@@ -60,7 +62,7 @@ export function intensityRowsOfYear(y: YearResult, benchmarks: YearBenchmark[], 
       measure: `${MEASURE[b.compared_with]}, against ${b.label}`,
       value: { value: fixed(b.site_value, 3), unit: b.unit },
       benchmark: { value: fixed(b.value, 3), unit: b.unit },
-      benchmarkSource: `${b.source}${b.from_memory ? " (from memory)" : ""}`,
+      benchmarkSource: `${b.source}${b.status === "unconfirmed" ? " (unconfirmed)" : ""}`,
       mark: above ? "attention" : "ok",
       position: b.site_value === null ? "No value this year" : `${above ? "Above by" : "At or below, by"} ${percentOver(b.site_value, b.value)} %`,
     });
@@ -93,6 +95,7 @@ export function buildAnnualModel(input: AnnualModelInput): AnnualStatementModel 
   return {
     header: {
       organisation: input.organisation,
+      installation: installationFacts(input.site.installation),
       siteName: input.site.name,
       siteCode: input.site.code,
       period: input.year,
@@ -140,6 +143,7 @@ export function buildAnnualModel(input: AnnualModelInput): AnnualStatementModel 
     flags: flagRows([...y.flags, ...monthFlags], null),
     revisions: revisionRows(input.revisions),
     cautions: [...STATEMENT_CAUTIONS],
+    unconfirmedCount: unconfirmedRows(first).length,
     signOff: {
       signer: input.signOff.signer,
       role: input.signOff.role,
@@ -148,6 +152,7 @@ export function buildAnnualModel(input: AnnualModelInput): AnnualStatementModel 
       certificateSubject: input.signOff.certificateSubject,
       certificateFingerprint: input.signOff.certificateFingerprint,
       verifyAt: input.signOff.verifyAt,
+      declaration: declarationText(unconfirmedRows(first).length),
     },
   };
 }

@@ -4,8 +4,8 @@
  * Input is the engine's result document (decimal strings); output is display strings with units.
  */
 import type { ResultDocument } from "@/lib/balance/result";
-import { DASH, compare, exact, fixed, percentOver, utcStamp } from "./format";
-import type { FlagRow, IntensityRow, Mark, MethodSection, RevisionRow, UncertaintyRow } from "./model";
+import { DASH, compare, exact, fixed, percentOver, times, utcStamp } from "./format";
+import type { FlagRow, IntensityRow, Mark, MethodSection, Provenance, RevisionRow, UncertaintyRow, UnconfirmedRow } from "./model";
 
 export const METHOD_LABELS: Record<string, string> = {
   "carbon-mass-balance": "Carbon mass balance (feed and fuel carbon in; exported, vented and emitted carbon out)",
@@ -28,26 +28,68 @@ export const KIND_LABELS: Record<string, string> = {
   "steam-export": "steam export",
 };
 
-const FROM_MEMORY = " (from memory: check against the source)";
+const PROVENANCE_TEXT: Record<Provenance, string> = {
+  confirmed: "confirmed",
+  unconfirmed: "unconfirmed",
+  site: "site's own figure",
+};
 
-export function methodSection(doc: ResultDocument): MethodSection {
+/** A cited value's provenance; records frozen before provenance was kept say neither, and count as unconfirmed. */
+export function provenanceOf(v: { status?: string }): Provenance {
+  return v.status === "confirmed" || v.status === "site" ? v.status : "unconfirmed";
+}
+
+type Sources = ResultDocument["method"]["sources"];
+
+/** The calorific basis in words; older records carry none and were computed on NCV. */
+export function energyBasisOf(doc: ResultDocument): "NCV" | "GCV" {
+  return (doc.method as { energy_basis?: "NCV" | "GCV" }).energy_basis === "GCV" ? "GCV" : "NCV";
+}
+export const ENERGY_BASIS_TEXT = {
+  NCV: "net calorific value (NCV, lower heating value)",
+  GCV: "gross calorific value (GCV, higher heating value)",
+} as const;
+
+/** Stream ids in a source's label become the stream's name ("power: …" → "Imported electricity: …"). */
+function sourceItem(s: Sources[number], streamName: (id: string) => string): string {
+  const stream = (s as { stream?: string }).stream;
+  return stream ? `${streamName(stream)}: ${s.label}` : s.label;
+}
+
+export function methodSection(doc: ResultDocument, streamName: (id: string) => string = (id) => id): MethodSection {
   const m = doc.method;
   const fs = m.factor_set;
   const notes: string[] = [];
   if (m.screening_estimate) notes.push("This is a screening estimate from default factors, not a measurement-based figure.");
-  if (m.any_from_memory)
-    notes.push("Values marked “from memory” were written down from the cited source without the text at hand; check them before relying on the statement.");
+  const unconfirmed = unconfirmedRows(doc, streamName);
+  if (unconfirmed.length)
+    notes.push(
+      `${unconfirmed.length} cited ${unconfirmed.length === 1 ? "value has" : "values have"} not yet been read in the published text of ${unconfirmed.length === 1 ? "its" : "their"} source and ${unconfirmed.length === 1 ? "is" : "are"} marked unconfirmed; the signatory acknowledged each before signing.`,
+    );
+  const gwpStatus = provenanceOf(m.gwp);
   return {
     method: METHOD_LABELS[m.emissions] ?? m.emissions,
-    factorSet: `${fs.name} (set ${fs.id}, version ${fs.version}${fs.built_in ? ", built in" : ""})`,
-    gwpSet: `${m.gwp.id}, 100-year: CH4 ${m.gwp.ch4}, N2O ${m.gwp.n2o} (${m.gwp.source}${m.gwp.from_memory ? FROM_MEMORY : ""})`,
-    sources: m.sources.map((s) => ({
-      item: s.label,
-      value: { value: s.value ?? DASH, unit: s.unit ?? "" },
-      source: `${s.source}${s.from_memory ? FROM_MEMORY : ""}`,
-    })),
+    factorSet: `${fs.name}, version ${fs.version}${fs.built_in ? " (built into Synledger)" : " (the organisation's own set)"}`,
+    gwpSet: `${m.gwp.id}, 100-year: CH4 ${m.gwp.ch4}, N2O ${m.gwp.n2o} (${m.gwp.source}; ${PROVENANCE_TEXT[gwpStatus]})`,
+    gwpShort: `${m.gwp.id} (100-year): CH4 ${m.gwp.ch4}, N2O ${m.gwp.n2o}; ${PROVENANCE_TEXT[gwpStatus]}`,
+    energyBasis: ENERGY_BASIS_TEXT[energyBasisOf(doc)],
+    sources: m.sources.map((s) => {
+      const status = provenanceOf(s);
+      return { item: sourceItem(s, streamName), value: { value: s.value ?? DASH, unit: s.unit ?? "" }, source: s.source, status, statusText: PROVENANCE_TEXT[status] };
+    }),
     notes,
   };
+}
+
+/** Every cited value of the month not confirmed in its published source, benchmarks included. */
+export function unconfirmedRows(doc: ResultDocument, streamName: (id: string) => string = (id) => id): UnconfirmedRow[] {
+  const rows: UnconfirmedRow[] = doc.method.sources
+    .filter((s) => provenanceOf(s) === "unconfirmed")
+    .map((s) => ({ key: s.key, item: sourceItem(s, streamName), value: s.value ? `${s.value}${s.unit ? ` ${s.unit}` : ""}` : DASH, source: s.source }));
+  for (const b of doc.benchmarks) {
+    if (provenanceOf(b) === "unconfirmed") rows.push({ key: `benchmark.${b.id}`, item: b.label, value: `${b.value ?? DASH} ${b.unit}`, source: b.source });
+  }
+  return rows;
 }
 
 const MEASURE_LABELS: Record<string, { label: string; unit: string }> = {
@@ -55,27 +97,25 @@ const MEASURE_LABELS: Record<string, { label: string; unit: string }> = {
   co2e_t_per_t_nh3: { label: "Direct CO2e per tonne NH3", unit: "t CO2e/t NH3" },
   net_co2e_t_per_t_nh3: { label: "Net CO2e per tonne NH3 (after deductions)", unit: "t CO2e/t NH3" },
   co2e_incl_indirect_t_per_t_nh3: { label: "CO2e per tonne NH3 with imported electricity and steam", unit: "t CO2e/t NH3" },
-  gj_lhv_per_t_nh3: { label: "Energy per tonne NH3 (net calorific value)", unit: "GJ/t NH3" },
 };
 
-/** Every intensity the engine gives; each benchmark the factor set names becomes its own row. */
-export function intensityRows(doc: ResultDocument): IntensityRow[] {
+/** 1 GJ in MMBtu: 1 / 1.05505585262 (International Table Btu, 1055.05585262 J exactly). */
+const GJ_TO_MMBTU = "0.947817120313317";
+
+/**
+ * Every intensity the engine gives; each benchmark the factor set names becomes its own row, and
+ * a set without benchmarks says so. Energy follows the set's calorific basis; US sites also see MMBtu.
+ */
+export function intensityRows(doc: ResultDocument, opts: { usUnits?: boolean } = {}): IntensityRow[] {
   const rows: IntensityRow[] = [];
   const intensity = doc.intensity as Record<string, string | boolean | null>;
+  const noBenchmark = doc.benchmarks.length === 0 ? "the factor set has no benchmark for this period" : "no benchmark for this measure in the factor set";
   for (const [key, meta] of Object.entries(MEASURE_LABELS)) {
     const v = intensity[key];
     const value = typeof v === "string" ? v : null;
-    const places = key.startsWith("gj") ? 2 : 3;
     const marks = doc.benchmarks.filter((b) => b.compared_with === key);
     if (marks.length === 0) {
-      rows.push({
-        measure: meta.label,
-        value: { value: fixed(value, places), unit: meta.unit },
-        benchmark: { value: DASH, unit: meta.unit },
-        benchmarkSource: "no benchmark in the factor set",
-        mark: "info",
-        position: "For information",
-      });
+      rows.push({ measure: meta.label, value: { value: fixed(value, 3), unit: meta.unit }, benchmark: { value: DASH, unit: meta.unit }, benchmarkSource: noBenchmark, mark: "info", position: "For information" });
       continue;
     }
     for (const b of marks) {
@@ -83,23 +123,35 @@ export function intensityRows(doc: ResultDocument): IntensityRow[] {
       const pct = value !== null && b.value !== null ? percentOver(value, b.value) : DASH;
       rows.push({
         measure: `${meta.label}, against ${b.label}`,
-        value: { value: fixed(value, places), unit: b.unit },
-        benchmark: { value: fixed(b.value, places), unit: b.unit },
-        benchmarkSource: `${b.source}${b.from_memory ? " (from memory)" : ""}`,
+        value: { value: fixed(value, 3), unit: b.unit },
+        benchmark: { value: fixed(b.value, 3), unit: b.unit },
+        benchmarkSource: `${b.source}${provenanceOf(b) === "unconfirmed" ? " (unconfirmed)" : ""}`,
         mark: above ? "attention" : "ok",
         position: value === null ? "No value this period" : above ? `Above by ${pct} %` : `At or below, by ${pct} %`,
       });
     }
   }
+  const basis = energyBasisOf(doc);
+  const gj = (basis === "GCV" ? intensity.gj_hhv_per_t_nh3 : intensity.gj_lhv_per_t_nh3) as string | null | undefined;
+  const basisWord = basis === "GCV" ? "gross calorific value, HHV" : "net calorific value, LHV";
+  const energyValue = opts.usUnits && typeof gj === "string" ? { value: fixed(times(gj, GJ_TO_MMBTU), 2), unit: `MMBtu ${basis === "GCV" ? "HHV" : "LHV"}/t NH3` } : { value: fixed(gj ?? null, 2), unit: `GJ ${basis}/t NH3` };
+  rows.push({
+    measure: `Energy (feed and fuel) per tonne NH3 (${basisWord})${opts.usUnits && typeof gj === "string" ? `; ${fixed(gj, 2)} GJ/t` : ""}`,
+    value: energyValue,
+    benchmark: { value: DASH, unit: energyValue.unit },
+    benchmarkSource: noBenchmark,
+    mark: "info",
+    position: "For information",
+  });
   return rows;
 }
 
 type UncertaintyJson = ResultDocument["uncertainty"]["co2"];
 
-export function uncertaintyRow(figure: string, u: UncertaintyJson): UncertaintyRow {
-  const meters = u.meter_components.map((c) => c.key).join(", ") || "none";
+export function uncertaintyRow(figure: string, u: UncertaintyJson, streamName: (id: string) => string = (id) => id): UncertaintyRow {
+  const meters = u.meter_components.map((c) => streamName(c.key)).join(", ") || "none";
   const factors = u.factor_components.map((c) => c.key).join(", ");
-  const missing = u.meters_without_uncertainty.length ? `; no stated uncertainty: ${u.meters_without_uncertainty.join(", ")}` : "";
+  const missing = u.meters_without_uncertainty.length ? `; no stated uncertainty: ${u.meters_without_uncertainty.map(streamName).join(", ")}` : "";
   return {
     figure,
     value: { value: fixed(u.value_t, 1), unit: "t CO2" },
@@ -119,7 +171,7 @@ export interface WrittenNote {
 /** A flag's written explanation, by `code|stream` (stream "" for month-wide flags). */
 export type FlagNotes = ReadonlyMap<string, { text: string; by: string }>;
 
-export function flagRows(flags: ResultDocument["flags"], balanceNote: WrittenNote | null, notes: FlagNotes = new Map()): FlagRow[] {
+export function flagRows(flags: ResultDocument["flags"], balanceNote: WrittenNote | null, notes: FlagNotes = new Map(), streamName: (id: string) => string = (id) => id): FlagRow[] {
   return flags.map((f) => {
     const own = notes.get(`${f.code}|${f.stream ?? ""}`);
     const answered = !own && balanceNote && /closure-out-of-tolerance$/.test(f.code);
@@ -127,7 +179,8 @@ export function flagRows(flags: ResultDocument["flags"], balanceNote: WrittenNot
       mark: SEVERITY_MARK[f.severity] ?? "info",
       code: f.code,
       stream: f.stream ?? "",
-      message: f.stream ? `${f.message} (stream ${f.stream})` : f.message,
+      // Engine messages name a stream by its id; the statement names it.
+      message: !f.stream ? f.message : f.message.includes(`(stream ${f.stream})`) ? f.message.split(`(stream ${f.stream})`).join(`(${streamName(f.stream)})`) : `${f.message} (${streamName(f.stream)})`,
       explanation: own ? own.text : answered ? balanceNote.text : "",
       explainedBy: own ? own.by : answered ? balanceNote.by : "",
     };

@@ -55,6 +55,26 @@ export function percentOver(value: string, reference: string): string {
   return fixed(new D(value).div(ref).minus(1).times(100).abs().toFixed(), 1);
 }
 
+/** Exact product of two decimal texts (unit conversions for display; rounded only by `fixed`). */
+export function times(a: string, b: string): string {
+  return new D(a).times(new D(b)).toFixed();
+}
+
+/** MJ/kg → Btu/lb: 1 Btu(IT)/lb is 2.326 kJ/kg exactly (definition of the International Table Btu). */
+export function btuPerLb(mjPerKg: string): string {
+  return new D(mjPerKg).times(1000).div("2.326").toFixed();
+}
+
+export function minus(a: string, b: string): string {
+  return new D(a).minus(new D(b)).toFixed();
+}
+
+/** a / b × 100 as decimal text; null when b is zero or either is missing. */
+export function ratioPct(a: string | null, b: string | null): string | null {
+  if (a === null || b === null || new D(b).isZero()) return null;
+  return new D(a).div(new D(b)).times(100).toFixed();
+}
+
 export function compare(a: string, b: string): number {
   return new D(a).cmp(new D(b));
 }

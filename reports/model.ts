@@ -13,8 +13,22 @@ export interface Qty {
 /** Status is text plus a drawn mark, never colour alone. */
 export type Mark = "ok" | "attention" | "fail" | "info";
 
+/** The installation a statement is issued for, as entered in site settings and frozen with the revision. */
+export interface InstallationFacts {
+  operator: string;
+  identifiers: { scheme: string; identifier: string }[];
+  address: string;
+  competentAuthority: string;
+  /** "MP-EW-2021-03, version 4". */
+  monitoringPlan: string;
+  /** "Name, e-mail, telephone". */
+  contact: string;
+}
+
 export interface StatementHeader {
   organisation: string;
+  /** Null when the record was frozen before installation identities were kept. */
+  installation: InstallationFacts | null;
   siteName: string;
   siteCode: string;
   /** "2026-03" or "2026". */
@@ -30,22 +44,93 @@ export interface StatementHeader {
   preparedAt: string;
 }
 
+/** Whether a cited value was read in its published source, or is the site's own figure. */
+export type Provenance = "confirmed" | "unconfirmed" | "site";
+
+export interface SourceRow {
+  item: string;
+  value: Qty;
+  /** Document and table or article. */
+  source: string;
+  status: Provenance;
+  /** "confirmed", "unconfirmed", "site's own figure". */
+  statusText: string;
+}
+
 export interface MethodSection {
   method: string;
   factorSet: string;
   gwpSet: string;
-  /** Each factor or rule with where it comes from (standard and table). */
-  sources: { item: string; value: Qty; source: string }[];
+  /** The GWP set without its source, for page 1: "AR5 (100-year): CH4 28, N2O 265; unconfirmed". */
+  gwpShort: string;
+  /** "net calorific value (NCV, lower heating value)" or "gross calorific value (GCV, higher heating value)". */
+  energyBasis: string;
+  /** Every factor or rule the figures rest on, with where it comes from and whether that was confirmed. */
+  sources: SourceRow[];
   notes: string[];
+}
+
+/** A cited value not yet read in its published source: listed, and acknowledged by the signatory. */
+export interface UnconfirmedRow {
+  key: string;
+  item: string;
+  value: string;
+  source: string;
+}
+
+/** Page 1: what the signatory answers for, in one place. */
+export interface SummaryFacts {
+  co2e: { gross: Qty; deducted: Qty; net: Qty };
+  /** "± 1.84 % (± 1 317.2 t)", expanded at 95 %. */
+  uncertainty: string;
+  uncertaintyNote: string;
+  gases: GasRow[];
+  ammonia: Qty;
+  closures: { element: string; closure: Qty; tolerance: Qty; mark: Mark; status: string }[];
+  /** Warnings and errors of the period, with their written explanations. */
+  openFlags: FlagRow[];
+}
+
+export interface GasAnalysisRow {
+  analysis: string;
+  /** Streams the analysis gives the composition of. */
+  usedBy: string;
+  sampledOn: string;
+  laboratory: string;
+  /** "CH4 92.40, C2H6 4.10, … mol %". */
+  composition: string;
+  molarMass: Qty;
+  gcv: Qty;
+  ncv: Qty;
+  carbon: Qty;
+}
+
+export interface TransferRow {
+  stream: string;
+  destination: string;
+  co2: Qty;
+  treatment: string;
+  rule: string;
+}
+
+/** Codes and identifiers kept out of the body text: for machines and for cross-reference. */
+export interface AppendixRow {
+  item: string;
+  value: string;
 }
 
 export interface InputRow {
   stream: string;
   kind: string;
   quantity: Qty;
-  /** "meter FT-101 (calibrated 2025-11-04)", "invoice", "estimate: …". */
+  /** "meter FT-101", "invoice", "estimate: …". */
   dataSource: string;
   uncertainty: string;
+  /** "tier 3 (EU MRR thresholds)", "below tier 1", "—". */
+  tier: string;
+  /** "2025-11-04 (due 2026-11-04)", "2025-01-30, OVERDUE since 2026-01-30", "—". */
+  calibration: string;
+  overdue: boolean;
 }
 
 export interface BalanceRow {
@@ -116,8 +201,10 @@ export interface SignOff {
   revision: string;
   certificateSubject: string;
   certificateFingerprint: string;
-  /** Where a reader can check a copy, e.g. "https://ledger.example/verify". */
+  /** Where a reader can check a copy: the public page of this statement, APP_URL/verify/REF. */
   verifyAt: string;
+  /** The signatory's declaration, in our own words, printed above the signature. */
+  declaration: string[];
 }
 
 /** The frozen record a statement was rendered from, and the files it carries. */
@@ -132,8 +219,13 @@ export interface EvidenceFacts {
 
 export interface MonthlyStatementModel {
   header: StatementHeader;
+  summary: SummaryFacts;
   method: MethodSection;
+  unconfirmed: UnconfirmedRow[];
   inputs: InputRow[];
+  gasAnalyses: GasAnalysisRow[];
+  /** Reference conditions of the volumetric calorific values, e.g. "15 °C, 101.325 kPa (ISO 6976)". */
+  analysesBasis: string;
   balances: BalanceRow[];
   /** Reconciliation outcome lines, e.g. "Global test: χ² = 3.1 < 7.8, passed". */
   reconciliation: string[];
@@ -142,6 +234,7 @@ export interface MonthlyStatementModel {
   emissionsUnit: string;
   emissionsByGas: GasRow[];
   co2: { gross: Qty; deducted: Qty; net: Qty; deductionNote: string };
+  transfers: TransferRow[];
   intensities: IntensityRow[];
   uncertainty: UncertaintyRow[];
   flags: FlagRow[];
@@ -149,6 +242,7 @@ export interface MonthlyStatementModel {
   cautions: string[];
   /** Null in the preview of a month not yet sent for review. */
   evidence: EvidenceFacts | null;
+  appendix: AppendixRow[];
   signOff: SignOff;
 }
 
@@ -188,6 +282,8 @@ export interface AnnualStatementModel {
   flags: FlagRow[];
   revisions: RevisionRow[];
   cautions: string[];
+  /** How many cited values the signatory acknowledged as unconfirmed. */
+  unconfirmedCount: number;
   signOff: SignOff;
 }
 

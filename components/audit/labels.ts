@@ -45,6 +45,7 @@ const ACTION_LABELS: Record<string, string> = {
   "months.seeded": "months seeded (demo)",
   "site.created": "set up",
   "site.changed": "settings changed",
+  "site.installation-changed": "installation identity changed",
   "site.archived": "archived",
   "site.restored": "restored",
   "stream.created": "added",

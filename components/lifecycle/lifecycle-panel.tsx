@@ -2,6 +2,7 @@ import { MonthStateBadge } from "@/components/ui/month-state";
 import type { ActionResult } from "@/lib/auth/guard";
 import type { Role } from "@/lib/auth/roles";
 import { MIN_REASON_CHARS, STATE_LABELS, mayPerform, rolesText, transitionsFrom, type MonthState, type TransitionRule } from "@/lib/lifecycle/transitions";
+import { SignForm, type SignFormProps } from "./sign-form";
 import { TransitionForm } from "./transition-form";
 
 /** What the page found out about the preconditions, so each action can say why it would fail. */
@@ -26,6 +27,8 @@ export interface LifecyclePanelProps {
   period: string;
   pre: Preconditions;
   action: (prev: ActionResult | null, formData: FormData) => Promise<ActionResult>;
+  /** What signing shows: the preview, the declaration and the unconfirmed values to acknowledge. */
+  sign?: Omit<SignFormProps, "action" | "siteId" | "period" | "version">;
 }
 
 function hints(rule: TransitionRule, pre: Preconditions): { blocked: boolean; lines: string[] } {
@@ -107,6 +110,8 @@ export function LifecyclePanel(p: LifecyclePanelProps) {
                   <p className="text-sm text-ink-soft">Done by: {rolesText(rule.name)}. Your roles do not include it.</p>
                 ) : h.blocked ? (
                   <p className="text-sm text-warn">Not possible yet: see above.</p>
+                ) : rule.name === "sign" && p.sign ? (
+                  <SignForm action={p.action} siteId={p.siteId} period={p.period} version={p.version} {...p.sign} />
                 ) : (
                   <TransitionForm
                     action={p.action}

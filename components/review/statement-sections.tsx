@@ -110,15 +110,32 @@ export function EmissionsSections({ m, explain }: { m: MonthlyStatementModel; ex
           <dd>{m.method.factorSet}</dd>
           <dt className="text-ink-soft">GWP values</dt>
           <dd>{m.method.gwpSet}</dd>
+          <dt className="text-ink-soft">Calorific basis</dt>
+          <dd>{m.method.energyBasis}</dd>
         </dl>
         <FigureTable
           caption="Factors and their sources"
           columns={[
             { title: "Factor or rule", cell: (r) => r.item },
             { title: "Value", numeric: true, cell: (r) => <QtyCell q={r.value} /> },
-            { title: "Source", cell: (r) => <span className={r.source.includes("from memory") ? "text-warn" : ""}>{r.source}</span> },
+            { title: "Source", cell: (r) => r.source },
+            { title: "Status", cell: (r) => <MarkText mark={r.status === "unconfirmed" ? "attention" : r.status === "site" ? "info" : "ok"}>{r.statusText}</MarkText> },
           ]}
           rows={m.method.sources}
+        />
+        <h3 className="text-sm font-semibold">
+          Values not yet confirmed in their published source <span className="num font-normal text-ink-soft">({m.unconfirmed.length})</span>
+        </h3>
+        <p className="text-xs text-ink-soft">Printed as unconfirmed in the statement; the signatory acknowledges each one before signing.</p>
+        <FigureTable
+          caption={`Values not yet confirmed in their published source (${m.unconfirmed.length}): the signatory acknowledges each before signing`}
+          empty="None: every cited value was confirmed in its published source or is the site's own figure."
+          columns={[
+            { title: "Value", cell: (r) => r.item },
+            { title: "As used", numeric: true, cell: (r) => <span className="num">{r.value}</span> },
+            { title: "Cited source", cell: (r) => <span className="text-xs">{r.source}</span> },
+          ]}
+          rows={m.unconfirmed}
         />
         {m.method.notes.map((n) => (
           <p key={n} className="text-xs text-ink-soft">

@@ -1,3 +1,4 @@
+import type { InstallationIdentity } from "@/lib/validations/installation";
 import "server-only";
 import { and, asc, count, eq, inArray, isNull, sql } from "drizzle-orm";
 import type { Db, Tx } from "../client";
@@ -45,6 +46,11 @@ export async function insertSite(tx: Tx, organisationId: string, values: SiteVal
 
 export async function updateSite(tx: Tx, siteId: string, values: SiteValues) {
   const [row] = await tx.update(sites).set(values).where(eq(sites.id, siteId)).returning();
+  return row;
+}
+
+export async function setInstallation(tx: Tx, siteId: string, installation: InstallationIdentity) {
+  const [row] = await tx.update(sites).set({ installation }).where(eq(sites.id, siteId)).returning();
   return row;
 }
 

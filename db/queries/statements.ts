@@ -1,4 +1,4 @@
-import { and, desc, eq, inArray, max, sql, type SQL } from "drizzle-orm";
+import { and, desc, eq, gt, inArray, max, sql, type SQL } from "drizzle-orm";
 import type { Db, Tx } from "../client";
 import { signingCertificates, sites, statements, type SigningCertificateRow, type StatementRow } from "../schema";
 
@@ -80,11 +80,14 @@ export async function listCertificates(db: Db, organisationId: string): Promise<
     .orderBy(desc(signingCertificates.createdAt));
 }
 
-export async function certificateByFingerprint(db: Db | Tx, organisationId: string, fingerprint: string): Promise<CertificateSummary | null> {
+/** A certificate by fingerprint, within one organisation, or among all (public verification: null). */
+export async function certificateByFingerprint(db: Db | Tx, organisationId: string | null, fingerprint: string): Promise<CertificateSummary | null> {
+  const byPrint = eq(signingCertificates.fingerprintSha256, fingerprint);
   const [row] = await db
     .select(certificateColumns)
     .from(signingCertificates)
-    .where(and(eq(signingCertificates.organisationId, organisationId), eq(signingCertificates.fingerprintSha256, fingerprint)));
+    .where(organisationId ? and(eq(signingCertificates.organisationId, organisationId), byPrint) : byPrint)
+    .limit(1);
   return row ?? null;
 }
 
@@ -93,17 +96,35 @@ export async function insertStatement(tx: Db | Tx, row: typeof statements.$infer
   return created;
 }
 
-/** Lookups for verification: always within one organisation, optionally within granted sites. */
-export interface StatementScope {
-  organisationId: string;
-  /** When set (e.g. an auditor granted some sites), statements of other sites count as not found. */
-  siteIds?: string[];
-}
+/**
+ * Lookups within one organisation, optionally within granted sites; or, for public verification
+ * by whoever holds a copy, among every stored statement (the answer then shows public facts only).
+ */
+export type StatementScope =
+  | {
+      organisationId: string;
+      /** When set (e.g. an auditor granted some sites), statements of other sites count as not found. */
+      siteIds?: string[];
+    }
+  | { anyOrganisation: true };
 
 function scoped(scope: StatementScope, ...more: SQL[]): SQL | undefined {
+  if ("anyOrganisation" in scope) return and(...more);
   const where = [eq(statements.organisationId, scope.organisationId), ...more];
   if (scope.siteIds) where.push(scope.siteIds.length ? inArray(statements.siteId, scope.siteIds) : sql`false`);
   return and(...where);
+}
+
+/** The newest later revision of the same site, kind and period, when the statement was superseded. */
+export async function laterRevisionOf(db: Db | Tx, s: Pick<StatementSummary, "siteId" | "kind" | "period" | "revision">): Promise<StatementSummary | null> {
+  const [row] = await db
+    .select(statementColumns)
+    .from(statements)
+    .innerJoin(sites, eq(sites.id, statements.siteId))
+    .where(and(eq(statements.siteId, s.siteId), eq(statements.kind, s.kind), eq(statements.period, s.period), gt(statements.revision, s.revision)))
+    .orderBy(desc(statements.revision))
+    .limit(1);
+  return row ?? null;
 }
 
 async function findOne(db: Db | Tx, where: SQL | undefined): Promise<StatementSummary | null> {

@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { boolean, index, integer, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { boolean, index, integer, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { roleEnum } from "./enums";
 
 export const organisations = pgTable("organisations", {
@@ -70,6 +70,22 @@ export const signInAttempts = pgTable(
     at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("sign_in_attempts_email_at_idx").on(t.email, t.at), index("sign_in_attempts_ip_at_idx").on(t.ip, t.at)],
+);
+
+/**
+ * Requests counted per purpose and caller address in fixed one-minute windows, so a limit holds
+ * across every instance of the app (public statement verification: 30 a minute per address).
+ * Rows of past windows are deleted as new ones are counted.
+ */
+export const requestCounts = pgTable(
+  "request_counts",
+  {
+    bucket: text("bucket").notNull(),
+    address: text("address").notNull(),
+    windowStart: timestamp("window_start", { withTimezone: true }).notNull(),
+    count: integer("count").notNull().default(0),
+  },
+  (t) => [primaryKey({ columns: [t.bucket, t.address, t.windowStart] }), index("request_counts_window_idx").on(t.windowStart)],
 );
 
 /**

@@ -1,4 +1,5 @@
-import { date, index, integer, numeric, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { date, index, integer, jsonb, numeric, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import type { InstallationIdentity } from "@/lib/validations/installation";
 import { meteringReferenceEnum, streamKindEnum } from "./enums";
 import { organisations } from "./organisations";
 
@@ -18,6 +19,8 @@ export const sites = pgTable(
     factorSet: text("factor_set").notNull().default("ipcc-2006"),
     emissionsMethod: text("emissions_method").notNull().default("carbon-mass-balance"),
     gwp: text("gwp").notNull().default("AR5"),
+    /** The installation its statements are issued for (lib/validations/installation.ts); null until entered. */
+    installation: jsonb("installation").$type<InstallationIdentity>(),
     archivedAt: timestamp("archived_at", { withTimezone: true }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },

@@ -3,7 +3,7 @@
  * verification), kept apart so openapi.ts stays readable. Their behaviour is described from the
  * route handlers; the coverage test fails when a new route file appears without a path here.
  */
-import { json, params, ref, responses } from "./openapi-parts";
+import { download, json, params, ref, responses } from "./openapi-parts";
 
 const site = [params.siteId];
 const month = [params.siteId, params.month];
@@ -13,11 +13,6 @@ const upload = (fields: Record<string, unknown>, required: string[]) => ({
   content: { "multipart/form-data": { schema: { type: "object", required, properties: { file: { type: "string", format: "binary" }, ...fields } } } },
 });
 const csvUpload = upload({ mapping: { type: "string", description: "column mapping as JSON text" }, confirmReplace: { enum: ["true"] } }, ["file", "mapping"]);
-const download = (mediaType: string, description: string) => ({
-  description,
-  headers: { "Content-Disposition": { schema: { type: "string" } } },
-  content: { [mediaType]: { schema: { type: "string", format: "binary" } } },
-});
 
 const year = [params.siteId, { name: "year", in: "path", required: true, description: "calendar year YYYY", schema: { type: "string", pattern: "^\\d{4}$" } }];
 
@@ -80,9 +75,25 @@ export const otherPaths = {
   },
   "/api/v1/verify": {
     post: {
-      summary: "Check a PDF against the organisation's signed statements: issued, altered or unknown (any member; nothing stored)",
+      summary:
+        "Public, no account: check a PDF against every stored statement (issued, superseded with the revision that replaced it, altered or unknown) and see its public facts only. 30 requests a minute per address; nothing stored",
+      security: [],
       requestBody: { required: true, content: { "multipart/form-data": { schema: { type: "object", required: ["file"], properties: { file: { type: "string", format: "binary" } } } }, "application/pdf": { schema: { type: "string", format: "binary" } } } },
-      responses: responses(json({ type: "object" }), ["400", "401", "413"]),
+      responses: responses(
+        json({
+          type: "object",
+          required: ["verdict", "sha256", "headline", "explanation", "statement", "supersededBy"],
+          properties: {
+            verdict: { type: "string", enum: ["issued", "superseded", "altered", "unknown"] },
+            sha256: { type: "string" },
+            headline: { type: "string" },
+            explanation: { type: "array", items: { type: "string" } },
+            statement: { type: ["object", "null"], description: "public facts: reference, installation, operator, identifiers, kind, period, revision, signer, signedAt, sha256, certificateFingerprint, figures, verifyUrl" },
+            supersededBy: { type: ["object", "null"], description: "public facts of the later revision (verdict superseded)" },
+          },
+        }),
+        ["400", "413", "429"],
+      ),
     },
   },
 };

@@ -104,3 +104,10 @@ export const schemas: Json = {
   PlantMonth: { type: "object", description: "plant-month file, format synledger.plant-month/1 (see the product's format description)", required: ["format", "site", "month", "streams", "method"] },
   Result: { type: "object", description: "result document, format synledger.result/1; numbers are decimal strings" },
 };
+
+/** A file answered as a download (Content-Disposition names it). */
+export const download = (mediaType: string, description: string) => ({
+  description,
+  headers: { "Content-Disposition": { schema: { type: "string" } } },
+  content: { [mediaType]: { schema: { type: "string", format: "binary" } } },
+});

@@ -1,5 +1,5 @@
 import { otherPaths } from "./openapi-others";
-import { body, json, params, ref, responses, schemas } from "./openapi-parts";
+import { body, download, json, params, ref, responses, schemas } from "./openapi-parts";
 
 const site = [params.siteId];
 const month = [params.siteId, params.month];
@@ -76,6 +76,13 @@ export const openApiDocument = {
         parameters: [...month, params.key],
         requestBody: body({ allOf: [ref("AnalysisInput"), { type: "object", properties: { expectedVersion: { type: "integer", minimum: 0 } } }] }),
         responses: responses(json(ref("Saved")), ["400", "401", "403", "404", "409", "413"]),
+      },
+    },
+    "/api/v1/sites/{siteId}/months/{month}/statement-preview": {
+      get: {
+        summary: "The unsigned statement PDF of a month In review exactly as it would be signed now (any member, signed in as a person)",
+        parameters: month,
+        responses: responses(download("application/pdf", "the unsigned statement"), ["401", "403", "404", "409"]),
       },
     },
     "/api/v1/sites/{siteId}/months/{month}/result": {

@@ -111,6 +111,30 @@ export function apiRoute<P = Record<string, string>>(
   };
 }
 
+/**
+ * Wraps a route handler anyone may call without a session (public statement verification, the
+ * health check): the same JSON errors as apiRoute, no actor. The handler sees no organisation,
+ * so it must answer from public facts only.
+ */
+export function publicRoute<P = Record<string, string>>(handler: (req: Request, params: P) => Promise<Response>) {
+  const route = async (req: Request, ctx: RouteContext<P>): Promise<Response> => {
+    try {
+      return await handler(req, await ctx.params);
+    } catch (err) {
+      return errorResponse(err);
+    }
+  };
+  // Marked so the cross-site tests know this handler reads no session and changes no record.
+  return Object.assign(route, { [PUBLIC_ROUTE]: true as const });
+}
+
+/** The mark publicRoute leaves on its handler. */
+export const PUBLIC_ROUTE = Symbol.for("synledger.public-route");
+
+export function isPublicRoute(handler: unknown): boolean {
+  return typeof handler === "function" && (handler as unknown as Record<symbol, unknown>)[PUBLIC_ROUTE] === true;
+}
+
 export type ActionResult<T = undefined> =
   | { ok: true; message?: string; data?: T }
   | { ok: false; message: string; errors?: Record<string, string> };

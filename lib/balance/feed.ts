@@ -57,6 +57,8 @@ export interface FeedFigures {
   feed_gj_lhv: Dec;
   fuel_gj_lhv: Dec;
   gj_lhv_per_t_nh3: Dec | null; // (feed + fuel) / NH3
+  /** The same on the gross (higher) heating value, for sets whose calorific basis is GCV/HHV. */
+  gj_hhv_per_t_nh3: Dec | null;
   feed_gj_lhv_per_t_nh3: Dec | null;
   theoretical_min_gj_lhv_per_t_nh3: Dec | null;
   feed_efficiency_pct: Dec | null; // theoretical / actual feed × 100
@@ -65,6 +67,7 @@ export interface FeedFigures {
 export function feedFigures(flows: StreamFlow[]): FeedFigures {
   const of = (kind: string) => flows.filter((f) => f.stream.kind === kind);
   const gj = (fs: StreamFlow[]) => sum(fs.map((f) => f.figures.gj_lhv ?? ZERO));
+  const gjHhv = (fs: StreamFlow[]) => sum(fs.map((f) => f.figures.gj_hhv ?? ZERO));
   const ammonia_t = sum(of("ammonia").map((f) => f.figures.t ?? ZERO));
   const feed_gj_lhv = gj(of("feed-gas"));
   const fuel_gj_lhv = gj(of("fuel-gas"));
@@ -79,6 +82,7 @@ export function feedFigures(flows: StreamFlow[]): FeedFigures {
     feed_gj_lhv,
     fuel_gj_lhv,
     gj_lhv_per_t_nh3: perT(feed_gj_lhv.plus(fuel_gj_lhv)),
+    gj_hhv_per_t_nh3: perT(gjHhv(of("feed-gas")).plus(gjHhv(of("fuel-gas")))),
     feed_gj_lhv_per_t_nh3: feedPerT,
     theoretical_min_gj_lhv_per_t_nh3: theoretical,
     feed_efficiency_pct: theoretical && feedPerT && feedPerT.gt(0) ? theoretical.div(feedPerT).times(HUNDRED) : null,

@@ -1,11 +1,11 @@
 // The emissions part of the text report: method and sources first (a reader must know the rules
-// before the numbers mean anything), then the figures, each with its unit. Values the factor set
-// holds "from memory" carry a * and the footnote says what that means.
+// before the numbers mean anything), then the figures, each with its unit. Values not yet read in
+// their published text (status "unconfirmed") carry a * and the footnote says what that means.
 import type { EmissionsResult } from "../emissions/result";
 import type { UncertaintyFigures } from "../emissions/uncertainty";
 import { fx, table } from "./text-table";
 
-const star = (fromMemory: boolean) => (fromMemory ? "*" : "");
+const star = (status: string) => (status === "unconfirmed" ? "*" : "");
 
 export function uncertaintyLine(label: string, u: UncertaintyFigures): string {
   return `${label}: ${fx(u.value_t, 1)} t ± ${fx(u.u95_t, 1)} t (± ${fx(u.u95_pct, 2)} %, 95 %, k = ${u.coverage_factor.toFixed()}); ` +
@@ -18,7 +18,7 @@ export function formatEmissions(d: EmissionsResult): string[] {
   const fs = d.factor_set;
   out.push(
     `Emissions — method ${d.method}; factor set ${fs.id} v${fs.version} (${fs.name})${fs.built_in ? "" : ", organisation's own set"}`,
-    `GWP100 ${d.gwp.id}: CH4 ${d.gwp.ch4.toFixed()}, N2O ${d.gwp.n2o.toFixed()}${star(d.gwp.from_memory)} (${d.gwp.source})`,
+    `GWP100 ${d.gwp.id}: CH4 ${d.gwp.ch4.toFixed()}, N2O ${d.gwp.n2o.toFixed()}${star(d.gwp.status)} (${d.gwp.source})`,
   );
   if (d.screening_estimate) out.push("SCREENING ESTIMATE: tonnes of ammonia × a default factor, not a monitored figure.");
   out.push("");
@@ -86,7 +86,7 @@ export function formatEmissions(d: EmissionsResult): string[] {
     out.push(
       table(
         ["benchmark", "value", "unit", "site", "site − bm", "site/bm %"],
-        d.benchmarks.map((b) => [`${b.label}${star(b.from_memory)}`, b.value.toFixed(3), b.unit, fx(b.site_value, 4), fx(b.difference, 4), fx(b.ratio_pct, 1)]),
+        d.benchmarks.map((b) => [`${b.label}${star(b.status)}`, b.value.toFixed(3), b.unit, fx(b.site_value, 4), fx(b.difference, 4), fx(b.ratio_pct, 1)]),
       ),
       "",
     );
@@ -103,9 +103,10 @@ export function formatEmissions(d: EmissionsResult): string[] {
     out.push(`Measured CO2 to air ${fx(b.measured_co2_t, 1)} t against the carbon balance ${fx(b.balance_co2_t, 1)} t: difference ${fx(b.difference_t, 1)} t (± ${fx(b.u95_t, 1)} t, 95 %)`, "");
   }
   out.push("Sources");
-  for (const c of d.citations) out.push(`  ${c.from_memory ? "*" : " "} ${c.label}${c.value ? ` ${c.value}${c.unit ? ` ${c.unit}` : ""}` : ""} — ${c.source}`);
-  if (d.citations.some((c) => c.from_memory) || d.benchmarks.some((b) => b.from_memory) || d.gwp.from_memory)
-    out.push("  * from memory: not yet read in the primary document; check it there before a statement relies on it.");
+  for (const c of d.citations) out.push(`  ${c.status === "unconfirmed" ? "*" : c.status === "site" ? "s" : " "} ${c.label}${c.value ? ` ${c.value}${c.unit ? ` ${c.unit}` : ""}` : ""} — ${c.source}`);
+  if (d.citations.some((c) => c.status === "unconfirmed") || d.benchmarks.some((b) => b.status === "unconfirmed") || d.gwp.status === "unconfirmed")
+    out.push("  * unconfirmed: not yet read in the published text of its source; check it there before a statement relies on it.");
+  if (d.citations.some((c) => c.status === "site")) out.push("  s the site's own figure: rests on the site's evidence (supplier or grid operator), not on a published table.");
   out.push("");
   return out;
 }

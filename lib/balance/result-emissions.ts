@@ -23,7 +23,7 @@ export function uncertaintyJson(u: UncertaintyFigures) {
 }
 
 /** `gjLhvPerT` comes from lib/balance's feed figures, which the format has always printed. */
-export function emissionsDocumentPart(d: EmissionsResult, gjLhvPerT: Dec | null) {
+export function emissionsDocumentPart(d: EmissionsResult, gjLhvPerT: Dec | null, gjHhvPerT: Dec | null = null) {
   const e = d.emissions;
   const i = d.intensity;
   const gas = (g: { t: Dec; co2e_t: Dec }, gwp: Dec | null) => ({ t: num(g.t), gwp: num(gwp), co2e_t: num(g.co2e_t) });
@@ -36,6 +36,7 @@ export function emissionsDocumentPart(d: EmissionsResult, gjLhvPerT: Dec | null)
     intensity: {
       co2e_t_per_t_nh3: num(i.co2e_t_per_t_nh3),
       gj_lhv_per_t_nh3: num(gjLhvPerT),
+      gj_hhv_per_t_nh3: num(gjHhvPerT),
       co2_t_per_t_nh3: num(i.co2_t_per_t_nh3),
       net_co2e_t_per_t_nh3: num(i.net_co2e_t_per_t_nh3),
       co2e_incl_indirect_t_per_t_nh3: num(i.co2e_incl_indirect_t_per_t_nh3),
@@ -55,7 +56,7 @@ export function emissionsDocumentPart(d: EmissionsResult, gjLhvPerT: Dec | null)
     },
     benchmarks: d.benchmarks.map((b) => ({
       id: b.id, label: b.label, kind: b.kind, value: num(b.value), unit: b.unit, compared_with: b.compared_with,
-      site_value: num(b.site_value), difference: num(b.difference), ratio_pct: num(b.ratio_pct), source: b.source, from_memory: b.from_memory,
+      site_value: num(b.site_value), difference: num(b.difference), ratio_pct: num(b.ratio_pct), source: b.source, status: b.status,
     })),
     theoretical_minimum: d.theoretical_minimum && {
       min_gj_lhv_per_t_nh3: num(d.theoretical_minimum.min_gj_lhv_per_t),
@@ -73,10 +74,19 @@ export function emissionsDocumentPart(d: EmissionsResult, gjLhvPerT: Dec | null)
     method: {
       emissions: d.method,
       factor_set: d.factor_set,
-      gwp: { id: d.gwp.id, ch4: num(d.gwp.ch4), n2o: num(d.gwp.n2o), source: d.gwp.source, from_memory: d.gwp.from_memory },
+      /** The calorific basis the set states its fuel factors on: NCV (LHV) or GCV (HHV). */
+      energy_basis: d.energy_basis,
+      gwp: { id: d.gwp.id, ch4: num(d.gwp.ch4), n2o: num(d.gwp.n2o), source: d.gwp.source, status: d.gwp.status },
       screening_estimate: d.screening_estimate,
-      any_from_memory: d.citations.some((c) => c.from_memory) || d.benchmarks.some((b) => b.from_memory),
-      sources: d.citations.map((c) => ({ key: c.key, label: c.label, value: c.value, unit: c.unit, source: c.source, from_memory: c.from_memory })),
+      // Keys of the cited values not yet read in their published text: the signatory acknowledges each.
+      unconfirmed: [
+        ...d.citations.filter((c) => c.status === "unconfirmed").map((c) => c.key),
+        ...d.benchmarks.filter((b) => b.status === "unconfirmed").map((b) => `benchmark.${b.id}`),
+      ],
+      sources: d.citations.map((c) => ({
+        key: c.key, label: c.label, value: c.value, unit: c.unit, source: c.source, status: c.status,
+        ...(c.checked ? { checked: c.checked } : {}), ...(c.stream ? { stream: c.stream } : {}),
+      })),
     },
   };
 }

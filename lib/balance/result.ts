@@ -116,7 +116,7 @@ export function toResultDocument(r: CalculationResult) {
       theoretical_min_gj_lhv_per_t_nh3: num(r.feed.theoretical_min_gj_lhv_per_t_nh3),
       feed_efficiency_pct: num(r.feed.feed_efficiency_pct),
     },
-    ...emissionsDocumentPart(r.emissions.detail, r.feed.gj_lhv_per_t_nh3),
+    ...emissionsDocumentPart(r.emissions.detail, r.feed.gj_lhv_per_t_nh3, r.feed.gj_hhv_per_t_nh3),
     reconciliation: rec && {
       constraints: rec.constraints,
       streams: rec.streams.map((s) => ({

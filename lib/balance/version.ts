@@ -4,4 +4,4 @@
  * rule): a snapshot names the version that produced it, and `--check-statement` says so when it
  * recomputes a statement with a different one.
  */
-export const ENGINE_VERSION = "synledger-engine/2026.12.1";
+export const ENGINE_VERSION = "synledger-engine/2026.12.2";

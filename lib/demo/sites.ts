@@ -1,3 +1,4 @@
+import type { InstallationIdentity } from "@/lib/validations/installation";
 // The invented demo organisation "Vellmar Nitrogen Co." and its two fictional sites. Meter
 // tags, gas analyses and calibration dates are our own inventions.
 import type { Component } from "../balance/components";
@@ -32,6 +33,8 @@ export interface DemoSite {
   design: { purge_per_nh3: string; export_share: string; gj_lhv_per_t: [string, string]; mwh_per_t: string };
   /** A month with a deliberately drifting meter, so the balances and reconciliation show it. */
   drift: { month: string; stream: string; factor: string };
+  /** The invented installation identity its statements carry. */
+  installation: InstallationIdentity;
 }
 
 export interface DemoOrganisation {
@@ -64,6 +67,20 @@ const ESTUARY: DemoSite = {
   ],
   design: { purge_per_nh3: "0.085", export_share: "0.88", gj_lhv_per_t: ["29.2", "30.4"], mwh_per_t: "0.065" },
   drift: { month: "2026-08", stream: "feed", factor: "1.04" },
+  installation: {
+    operatorName: "Vellmar Nitrogen Company Limited",
+    identifiers: [
+      { scheme: "EU ETS permit", identifier: "NM-GHG-0417" },
+      { scheme: "EU ETS installation identifier", identifier: "NM-000417" },
+    ],
+    address: "Estuary Works, 12 Saltmarsh Quay, Harrowby NM4 7QT, Northmere",
+    competentAuthority: "Northmere Environment Agency, Emissions Trading Unit",
+    monitoringPlanRef: "MP-EW-2021-03",
+    monitoringPlanVersion: "4",
+    contactName: "Maren Holt",
+    contactEmail: "emissions.estuary@vellmar.example",
+    contactPhone: "+44 1632 960 417",
+  },
 };
 
 const DUNMOOR: DemoSite = {
@@ -89,6 +106,17 @@ const DUNMOOR: DemoSite = {
   ],
   design: { purge_per_nh3: "0.095", export_share: "0.45", gj_lhv_per_t: ["29.6", "30.8"], mwh_per_t: "0.090" },
   drift: { month: "2026-10", stream: "fuel", factor: "1.10" },
+  installation: {
+    operatorName: "Vellmar Nitrogen (Dunmoor) LLC",
+    identifiers: [{ scheme: "US EPA GHGRP facility ID", identifier: "DM-552187" }],
+    address: "Dunmoor Works, 4400 Prairie Rail Road, Dunmoor, KS 67999, United States",
+    competentAuthority: "U.S. Environmental Protection Agency, Greenhouse Gas Reporting Program",
+    monitoringPlanRef: "GHG-MP-DM-2019",
+    monitoringPlanVersion: "7",
+    contactName: "Maren Holt",
+    contactEmail: "ghg.dunmoor@vellmar.example",
+    contactPhone: "+1 620 555 0144",
+  },
 };
 
 export function demoOrganisation(): DemoOrganisation {

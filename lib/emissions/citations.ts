@@ -3,6 +3,13 @@ import type { CitedValue, FactorSet } from "./factor-set-schema";
 import type { GwpSet } from "./gwp";
 import type { EmissionsInput } from "./types";
 
+/**
+ * Provenance of a cited value: "confirmed" and "unconfirmed" as the factor set records them
+ * (factor-set-schema.ts); "site" for a factor the site entered itself (an electricity or steam
+ * supplier's figure), which rests on the site's own evidence rather than on a published table.
+ */
+export type CitationStatus = "confirmed" | "unconfirmed" | "site";
+
 /** One value a month's figures rest on, with the table it comes from. */
 export interface Citation {
   key: string;            // e.g. "natural-gas.co2", "stoichiometric-factor", "deduction.urea"
@@ -10,11 +17,15 @@ export interface Citation {
   value: string | null;   // as the set writes it (decimal text, or "44/12")
   unit: string | null;
   source: string;
-  from_memory: boolean;
+  status: CitationStatus;
+  /** Where the published text was read (confirmed values only). */
+  checked: string | null;
+  /** The stream a site-entered factor belongs to. */
+  stream?: string;
 }
 
-const cite = (key: string, label: string, v: Pick<CitedValue, "source" | "from_memory"> & { value?: string; unit?: string }): Citation => ({
-  key, label, value: v.value ?? null, unit: v.unit ?? null, source: v.source, from_memory: v.from_memory === true,
+const cite = (key: string, label: string, v: Pick<CitedValue, "source" | "status" | "checked"> & { value?: string; unit?: string }): Citation => ({
+  key, label, value: v.value ?? null, unit: v.unit ?? null, source: v.source, status: v.status, checked: v.checked ?? null,
 });
 
 /**
@@ -57,10 +68,21 @@ export function citationsFor(input: EmissionsInput, set: FactorSet, gwp: GwpSet,
   if (streamsOf(input, "steam-import", "steam-export").some((s) => !s.factor_t_per_GJ) && set.steam) {
     out.push(cite("steam", "imported/exported steam", set.steam));
   }
+  // Factors the site gives its imports itself: a statement lists them beside the set's own.
+  for (const s of streamsOf(input, "electricity-import")) {
+    if (s.factor_t_per_MWh) out.push(siteFactor(s.id, "electricity", "CO2 factor of the imported electricity", s.factor_t_per_MWh.toString(), "t CO2/MWh"));
+  }
+  for (const s of streamsOf(input, "steam-import", "steam-export")) {
+    if (s.factor_t_per_GJ) out.push(siteFactor(s.id, "steam", `CO2 factor of the ${s.kind === "steam-export" ? "exported" : "imported"} steam`, s.factor_t_per_GJ.toString(), "t CO2/GJ"));
+  }
   // Tiers fall back to the EU MRR thresholds when the set has none (as assessTiers does).
   const tier = set.activity_tiers?.[0] ?? tierFallback?.activity_tiers?.[0];
-  if (tier) out.push(cite("activity-tiers", `activity-data tier thresholds${set.activity_tiers ? "" : ` (from ${tierFallback?.id})`}`, tier));
+  if (tier) out.push(cite("activity-tiers", `activity-data tier thresholds${set.activity_tiers ? "" : " (the set states none; the EU MRR thresholds are used)"}`, tier));
   out.push({ key: "gwp", label: `GWP100 ${gwp.id}: CH4 ${gwp.ch4.toString()}, N2O ${gwp.n2o.toString()}`, value: null, unit: null,
-    source: gwp.source, from_memory: gwp.from_memory === true });
+    source: gwp.source, status: gwp.status, checked: gwp.checked ?? null });
   return out;
+}
+
+function siteFactor(stream: string, what: string, label: string, value: string, unit: string): Citation {
+  return { key: `${what}.${stream}`, label, value, unit, source: "the site's own figure for this stream (supplier or grid operator)", status: "site", checked: null, stream };
 }

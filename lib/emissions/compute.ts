@@ -102,7 +102,8 @@ export function computeEmissions(input: EmissionsInput, registry: FactorSetRegis
     month: input.month,
     method: input.method.emissions,
     factor_set: { id: set.id, version: set.version, name: set.name, built_in: registry.isBuiltIn(set.id) },
-    gwp: { id: gwp.id, ch4: gwp.ch4, n2o: gwp.n2o, source: gwp.source, from_memory: gwp.from_memory === true },
+    energy_basis: energyBasisOf(set),
+    gwp: { id: gwp.id, ch4: gwp.ch4, n2o: gwp.n2o, source: gwp.source, status: gwp.status, checked: gwp.checked ?? null },
     screening_estimate: outcome.screening_estimate,
     by_stream: byStream,
     by_gas: {
@@ -124,3 +125,9 @@ export function computeEmissions(input: EmissionsInput, registry: FactorSetRegis
   };
 }
 
+
+/** The calorific basis of the set's natural-gas factors (NCV unless the set states GCV). */
+function energyBasisOf(set: FactorSet): "NCV" | "GCV" {
+  const a = set.fuels["natural-gas"]?.activity;
+  return a && a.kind === "energy" ? a.basis : "NCV";
+}

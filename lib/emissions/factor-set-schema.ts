@@ -11,20 +11,28 @@ const ISO_DATE_RE = /^\d{4}-\d{2}-\d{2}$/;
 
 export const decimalString = z.string().regex(DECIMAL_RE, "must be a decimal number written as a string");
 const isoDate = z.string().regex(ISO_DATE_RE, "must be a date YYYY-MM-DD");
-const sourceStatus = z.enum(["published", "from memory"]);
+/**
+ * Provenance of a value. "confirmed": the value was read in the published text of the document
+ * and place `source` names (and `checked` says where that text was read); "unconfirmed": it is
+ * cited but nobody has yet read it there. A statement lists every unconfirmed value it rests on
+ * and its signatory acknowledges each one before signing.
+ */
+export const provenanceStatus = z.enum(["confirmed", "unconfirmed"]);
+export type ProvenanceStatus = z.infer<typeof provenanceStatus>;
 
-/** Where a value comes from; `from_memory: true` must accompany status "from memory" and only it. */
+/** Where a value comes from: document and table or article, whether it was confirmed there, and how. */
 const citation = {
-  source: z.string().min(1, "a source naming the table is required"),
-  status: sourceStatus,
-  from_memory: z.boolean().optional(),
+  source: z.string().min(1, "a source naming the document and its table or article is required"),
+  status: provenanceStatus,
+  /** Where the published text was read when the value was confirmed (required when status is "confirmed"). */
+  checked: z.string().min(1).optional(),
   note: z.string().optional(),
 };
 
-function memoryMarkConsistent(v: { status: string; from_memory?: boolean }): boolean {
-  return (v.status === "from memory") === (v.from_memory === true);
+function checkedWhenConfirmed(v: { status: string; checked?: string }): boolean {
+  return v.status !== "confirmed" || (v.checked !== undefined && v.checked.trim() !== "");
 }
-const memoryMessage = { message: 'from_memory must be true exactly when status is "from memory"', path: ["from_memory"] };
+const checkedMessage = { message: 'a "confirmed" value must say in `checked` where its published text was read', path: ["checked"] };
 
 export const citedValueSchema = z
   .object({
@@ -34,7 +42,7 @@ export const citedValueSchema = z
     uncertainty_pct: decimalString.optional(),
     ...citation,
   })
-  .refine(memoryMarkConsistent, memoryMessage);
+  .refine(checkedWhenConfirmed, checkedMessage);
 
 /** What one unit of activity is: factors are kg of gas per one unit of this activity. */
 export const activityBasisSchema = z.discriminatedUnion("kind", [
@@ -62,7 +70,7 @@ export const fuelFactorsSchema = z.object({
 
 const ratioSchema = z
   .object({ numerator: decimalString, denominator: decimalString, unit: z.string().min(1), ...citation })
-  .refine(memoryMarkConsistent, memoryMessage)
+  .refine(checkedWhenConfirmed, checkedMessage)
   .refine((r) => !/^-?0*(\.0*)?([eE].*)?$/.test(r.denominator), { message: "denominator must not be zero", path: ["denominator"] });
 
 const perTonneRowSchema = z.object({
@@ -85,14 +93,14 @@ const benchmarkSchema = z
     applies_to: isoDate.nullable(),
     ...citation,
   })
-  .refine(memoryMarkConsistent, memoryMessage);
+  .refine(checkedWhenConfirmed, checkedMessage);
 
 const deductionRuleSchema = z
   .object({ deducted: z.boolean(), ...citation })
-  .refine(memoryMarkConsistent, memoryMessage);
+  .refine(checkedWhenConfirmed, checkedMessage);
 
 const tierSchema = z.object({ tier: z.number().int().min(1).max(4), max_uncertainty_pct: decimalString, ...citation })
-  .refine(memoryMarkConsistent, memoryMessage);
+  .refine(checkedWhenConfirmed, checkedMessage);
 
 export const factorSetSchema = z
   .object({

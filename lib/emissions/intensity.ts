@@ -17,7 +17,7 @@ export interface IntensityFigures {
 
 export interface BenchmarkComparison {
   id: string; label: string; kind: "product-benchmark" | "reference";
-  value: Decimal; unit: string; source: string; from_memory: boolean;
+  value: Decimal; unit: string; source: string; status: "confirmed" | "unconfirmed"; checked: string | null;
   compared_with: "co2_t_per_t_nh3" | "co2e_t_per_t_nh3";
   site_value: Decimal | null;
   difference: Decimal | null;                   // site − benchmark
@@ -105,7 +105,7 @@ export function compareBenchmarks(set: FactorSet, month: string, i: IntensityFig
       const site = i[comparedWith];
       const value = dec(b.value);
       return {
-        id: b.id, label: b.label, kind: b.kind, value, unit: b.unit, source: b.source, from_memory: b.from_memory === true,
+        id: b.id, label: b.label, kind: b.kind, value, unit: b.unit, source: b.source, status: b.status, checked: b.checked ?? null,
         compared_with: comparedWith, site_value: site,
         difference: site === null ? null : site.minus(value),
         ratio_pct: site === null || value.isZero() ? null : site.div(value).times(100),

@@ -12,7 +12,9 @@ export interface EmissionsResult {
   month: string;
   method: EmissionsMethod;
   factor_set: { id: string; version: string; name: string; built_in: boolean };
-  gwp: { id: GwpId; ch4: Decimal; n2o: Decimal; source: string; from_memory: boolean };
+  /** Calorific basis of the set's fuel factors: NCV (LHV) or GCV (HHV). */
+  energy_basis: "NCV" | "GCV";
+  gwp: { id: GwpId; ch4: Decimal; n2o: Decimal; source: string; status: "confirmed" | "unconfirmed"; checked: string | null };
   /** True for the default-factor method: a per-tonne estimate, not a monitored figure. */
   screening_estimate: boolean;
   by_stream: StreamEmission[];

@@ -27,7 +27,7 @@ export function factorSetLabel(code: string): MethodLabel {
 export function gwpLabel(code: string): MethodLabel {
   const g = GWP_SETS[code as GwpId];
   if (!g) return { code, name: code, detail: null };
-  return { code, name: `${code}: CH4 ${g.ch4.toFixed()}, N2O ${g.n2o.toFixed()} (100-year)`, detail: `${g.source}${g.from_memory ? " (from memory: check against the source)" : ""}` };
+  return { code, name: `${code}: CH4 ${g.ch4.toFixed()}, N2O ${g.n2o.toFixed()} (100-year)`, detail: `${g.source}${g.status === "unconfirmed" ? " (unconfirmed: not yet read in the published text)" : ""}` };
 }
 
 export const FACTOR_SET_CHOICES = BUILT_IN_FACTOR_SETS.map((s) => factorSetLabel(s.id));

@@ -1,4 +1,5 @@
 import "server-only";
+import type { InstallationIdentity } from "@/lib/validations/installation";
 /**
  * The one home of "run a stored month through the engine". A month that is Open or Balanced is
  * computed from what the database holds now (rows → plant-month document → engine, cached by the
@@ -27,7 +28,14 @@ export const isFrozenState = (state: string | null | undefined): boolean => (FRO
 
 /** What the statement prints beside the figures, as it was when the month was frozen. */
 export interface SnapshotContext {
-  site: { name: string; code: string; meteringReference: string; closureTolerancePct: string };
+  site: {
+    name: string;
+    code: string;
+    meteringReference: string;
+    closureTolerancePct: string;
+    /** The installation identity as it stood when the revision was frozen (absent in records frozen before it was kept). */
+    installation?: InstallationIdentity | null;
+  };
   streams: StreamFacts[];
   analyses: { key: string; sampledOn: string | null; laboratory: string | null }[];
   /** Explanations of the revision's flags, as written before it was frozen. */
@@ -149,6 +157,7 @@ function contextOf(bundle: MonthBundle, flagNotes: FlagNoteFact[]): SnapshotCont
       code: bundle.site.code,
       meteringReference: bundle.site.meteringReference,
       closureTolerancePct: bundle.site.closureTolerancePct,
+      installation: bundle.site.installation ?? null,
     },
     streams: streamFacts(bundle),
     analyses: bundle.analyses.map((a) => ({ key: a.key, sampledOn: a.sampledOn, laboratory: a.laboratory })),

@@ -65,7 +65,7 @@ export interface YearBenchmark {
   difference: string | null;
   ratio_pct: string | null;
   source: string;
-  from_memory: boolean;
+  status: "confirmed" | "unconfirmed";
 }
 
 /**
@@ -91,7 +91,7 @@ export function yearBenchmarks(runs: readonly MonthRun[], year: YearResult | nul
         difference: site ? num(site.minus(b.value)) : null,
         ratio_pct: site && !b.value.isZero() ? num(site.div(b.value).times(100)) : null,
         source: b.source,
-        from_memory: b.from_memory,
+        status: b.status,
       });
     }
   }

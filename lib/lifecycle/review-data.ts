@@ -50,7 +50,7 @@ export async function loadReview(db: Db, actor: { organisationId: string; organi
   ]);
   const prepared = lastOf(events, "send-for-review", month.revision);
   const frozen = run?.ok ? run.frozen : null;
-  const siteFacts = frozen?.context.site ?? { name: site.name, code: site.code, meteringReference: site.meteringReference, closureTolerancePct: site.closureTolerancePct };
+  const siteFacts = frozen?.context.site ?? { name: site.name, code: site.code, meteringReference: site.meteringReference, closureTolerancePct: site.closureTolerancePct, installation: site.installation };
   const model =
     run?.ok &&
     buildMonthlyModel({
@@ -60,6 +60,8 @@ export async function loadReview(db: Db, actor: { organisationId: string; organi
       revision: month.revision,
       statementRef: "assigned at signing",
       result: run.doc,
+      document: run.document,
+      analyses: frozen?.context.analyses ?? run.bundle.analyses.map((a) => ({ key: a.key, sampledOn: a.sampledOn, laboratory: a.laboratory })),
       streams: frozen?.context.streams ?? streamFacts(run.bundle),
       flagNotes: notesMap(frozen ? (frozen.context.flagNotes ?? []) : liveNotes.map((n) => ({ code: n.code, stream: n.stream, text: n.text, by: `${n.writtenByName}, ${n.writtenRole.toLowerCase()}` }))),
       evidence: frozen ? evidenceOf(frozen, frozenFiles({ documentText: "", resultText: "" }, siteFacts.code, period, month.revision)) : null,
@@ -70,7 +72,7 @@ export async function loadReview(db: Db, actor: { organisationId: string; organi
         ...revisionFacts(events, statements),
         ...(statements.some((s) => s.revision === month.revision) ? [] : [{ revision: month.revision, signedAt: null, signer: null, reason: reopenReason(events, month.revision) }]),
       ],
-      signOff: { signer: "—", role: "Signatory", signedAt: null, certificateSubject: cert?.subject ?? "no active certificate", certificateFingerprint: cert?.fingerprintSha256 ?? "—", verifyAt: `${appUrl()}/verify` },
+      signOff: { signer: "—", role: "Signatory", signedAt: null, certificateSubject: cert?.subject ?? "no active certificate", certificateFingerprint: cert?.fingerprintSha256 ?? "—", verifyAt: `${appUrl()}/verify/(reference given at signing)` },
     });
   const outside = run?.ok
     ? run.balances.filter((b) => !b.within).map((b) => `The ${b.element} balance closes at ${signed(b.closurePct, 2)} %, beyond ±${b.tolerancePct} %.`)

@@ -11,6 +11,7 @@ import { monthEvents } from "./history";
 import { flagNotesOf } from "@/db/queries/flag-notes";
 import { insertSnapshot } from "@/db/queries/snapshots";
 import { runStoredMonth, snapshotOf } from "@/lib/ledger/month-runs";
+import { missingInstallationFields } from "@/lib/validations/installation";
 import { dayLabel as dayText, monthTiming } from "@/lib/period";
 import { actAsLifecycle } from "./db-flag";
 import { queueTransitionNotice } from "./notify";
@@ -37,6 +38,9 @@ export interface TransitionInput {
   /** record-submission: the authority's reference and the date it was submitted (YYYY-MM-DD). */
   reference?: string | null;
   submittedOn?: string | null;
+  /** sign: the declaration ticked, and the keys of the unconfirmed values acknowledged one by one. */
+  declaration?: boolean;
+  acknowledged?: readonly string[];
 }
 
 export interface TransitionOutcome {
@@ -106,6 +110,14 @@ export async function transitionMonth(db: Db, actor: LifecycleActor, input: Tran
       if (!month.emissionsMethod.trim()) missing.push({ path: "emissions_method", message: "choose the month's emissions method on the review page" });
       if (!month.factorSet.trim()) missing.push({ path: "factor_set", message: "choose the month's factor set on the review page" });
       if (missing.length) throw unmet("The statement needs an emissions method and a factor set.", missing);
+      // The statement names the installation on its first page; it cannot go for sign-off without it.
+      const identity = missingInstallationFields(site.installation);
+      if (identity.length) {
+        throw unmet(
+          `The statement needs the installation identity of ${site.name}; an administrator completes it in site settings (Installation identity). Missing: ${identity.map((f) => f.label).join("; ")}.`,
+          identity.map((f) => ({ path: f.path, message: `missing: ${f.label}` })),
+        );
+      }
       extra.method = month.emissionsMethod;
       extra.factorSet = month.factorSet;
       extra.gwp = month.gwp;
@@ -151,10 +163,12 @@ export async function transitionMonth(db: Db, actor: LifecycleActor, input: Tran
 
     if (input.transition === "sign") {
       const events = await monthEvents(tx, actor.organisationId, month.id);
-      const signed = await signMonth(tx, actor, site, month, events);
+      const signed = await signMonth(tx, actor, site, month, events, { declaration: input.declaration, acknowledged: input.acknowledged });
       statementId = signed.id;
       extra.statementId = signed.id;
       extra.sha256 = signed.sha256;
+      extra.declaration = "made";
+      extra.acknowledgedUnconfirmed = signed.acknowledged;
       mailExtra = `Statement SHA-256: ${signed.sha256}`;
     }
 

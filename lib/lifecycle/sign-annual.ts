@@ -6,6 +6,7 @@ import { latestRevision, listStatements } from "@/db/queries/statements";
 import { HttpError, notFound } from "@/lib/auth/errors";
 import type { Actor } from "@/lib/auth/guard";
 import { annualReadiness, rollUpRuns, yearBenchmarks, yearTheoreticalMinimum } from "@/lib/ledger/year";
+import { installationSummary } from "@/reports/build-model";
 import { issueStatement, NoSigningCertificate, signOffFacts } from "@/lib/signing/issue";
 import { renderAnnualStatement } from "@/reports/render";
 import { annualSummary, buildAnnualModel } from "@/reports/build-annual-model";
@@ -74,12 +75,13 @@ export async function signAnnual(db: Db, actor: Actor, siteId: string, year: str
         signer: { userId: actor.userId, name: actor.name, role: "Signatory" },
         location: y.site.name,
         contactInfo: actor.email,
-        summary: annualSummary(rollUp),
+        summary: { ...installationSummary(y.frozen.get(`${year}-12`)?.context.site.installation ?? y.site.installation), ...annualSummary(rollUp) },
         render: (ctx) =>
           renderAnnualStatement(
             buildAnnualModel({
               organisation: actor.organisationName,
-              site: y.site,
+              // The installation as frozen with the year's last month (December's signed revision).
+              site: { ...y.site, installation: y.frozen.get(`${year}-12`)?.context.site.installation ?? y.site.installation },
               year,
               revision,
               statementRef: ctx.statementId,

@@ -4,6 +4,7 @@
  * stream's /Subtype). The signed statement carries the plant-month document and the result
  * document it was rendered from, so anyone holding the PDF can recompute it.
  */
+import { applyPdfA3 } from "./pdfa";
 import { AFRelationship, decodePDFRawStream, PDFArray, PDFDict, PDFDocument, PDFHexString, PDFName, PDFRawStream, PDFString } from "pdf-lib";
 
 export interface EmbeddedFile {
@@ -13,12 +14,17 @@ export interface EmbeddedFile {
   bytes: Uint8Array;
 }
 
-/** Attaches the files and writes the PDF with a classic cross-reference table (what the signature placeholder needs). */
-export async function embedFiles(pdf: Buffer, files: EmbeddedFile[], when: Date): Promise<Buffer> {
+/**
+ * Attaches the files, makes the document PDF/A-3b (lib/signing/pdfa.ts) and writes it with a
+ * classic cross-reference table (what the signature placeholder needs). The title, author and
+ * subject react-pdf wrote are carried into the XMP metadata.
+ */
+export async function embedFiles(pdf: Buffer, files: EmbeddedFile[], when: Date, language = "en-GB"): Promise<Buffer> {
   const doc = await PDFDocument.load(pdf, { updateMetadata: false });
   for (const f of files) {
     await doc.attach(f.bytes, f.name, { mimeType: f.mediaType, description: f.description, creationDate: when, modificationDate: when, afRelationship: AFRelationship.Source });
   }
+  applyPdfA3(doc, { title: doc.getTitle() ?? "Synledger statement", author: doc.getAuthor() ?? "Synledger", subject: doc.getSubject() ?? "", language, created: when });
   return Buffer.from(await doc.save({ useObjectStreams: false, updateFieldAppearances: false }));
 }
 

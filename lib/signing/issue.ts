@@ -8,7 +8,7 @@ import {
   insertStatement,
   type CertificateSummary,
 } from "@/db/queries/statements";
-import { appUrl } from "@/lib/mail/transport";
+import { verifyUrl } from "./public-url";
 import { readP12 } from "./certificate";
 import { sha256Hex } from "./hash";
 import { openPassphrase, sealPassphrase } from "./passphrase-box";
@@ -74,7 +74,7 @@ export function signOffFacts(signer: string, ctx: SigningContext) {
     signedAt: ctx.signedAt,
     certificateSubject: ctx.certificateSubject,
     certificateFingerprint: ctx.certificateFingerprint,
-    verifyAt: `${appUrl()}/verify`,
+    verifyAt: verifyUrl(ctx.statementId),
   };
 }
 
@@ -123,7 +123,8 @@ export async function issueStatement(db: Db | Tx, input: IssueInput): Promise<{ 
       certificateSubject: cert.subject,
       certificateFingerprint: cert.fingerprintSha256,
     });
-    const withFiles = input.files?.length ? await embedFiles(unsigned, input.files, signedAt) : unsigned;
+    // Files attached and the document made PDF/A-3b before sealing, so the signature covers both.
+    const withFiles = await embedFiles(unsigned, input.files ?? [], signedAt);
     const passphrase = openPassphrase(cert.passphraseSealed, cert.fingerprintSha256);
     const what = `${input.kind} statement ${input.period} revision ${input.revision}, signed by ${input.signer.name} (${input.signer.role})`;
     const pdf = await sealPdf(withFiles, cert.p12, passphrase, {

@@ -1,6 +1,7 @@
-import { plainAddPlaceholder } from "@signpdf/placeholder-plain";
+import { pdflibAddPlaceholder } from "@signpdf/placeholder-pdf-lib";
 import { P12Signer } from "@signpdf/signer-p12";
 import { SignPdf } from "@signpdf/signpdf";
+import { PDFDocument } from "pdf-lib";
 
 export interface SealDetails {
   reason: string;
@@ -12,13 +13,16 @@ export interface SealDetails {
 }
 
 /**
- * Adds a signature dictionary to a PDF made by react-pdf (classic xref table, which the plain
- * placeholder needs) and fills it with a detached PKCS#7 (SHA-256) made with the PKCS#12 key.
+ * Adds a signature field and dictionary with pdf-lib (@signpdf/placeholder-pdf-lib: the widget
+ * gets an appearance stream and the file keeps its trailer ID, both needed for PDF/A) and fills
+ * it with a detached PKCS#7 (SHA-256) made with the PKCS#12 key. The placeholder is written in
+ * a full save with a classic cross-reference table, so nothing is appended after signing.
  */
 export async function sealPdf(pdf: Buffer, p12: Buffer, passphrase: string, details: SealDetails): Promise<Buffer> {
   const signingTime = details.signingTime ?? new Date();
-  const withPlaceholder = plainAddPlaceholder({
-    pdfBuffer: pdf,
+  const doc = await PDFDocument.load(pdf, { updateMetadata: false });
+  pdflibAddPlaceholder({
+    pdfDoc: doc,
     reason: details.reason,
     location: details.location,
     name: details.name,
@@ -26,5 +30,6 @@ export async function sealPdf(pdf: Buffer, p12: Buffer, passphrase: string, deta
     signingTime,
     appName: "Synledger",
   });
+  const withPlaceholder = Buffer.from(await doc.save({ useObjectStreams: false, updateFieldAppearances: false }));
   return new SignPdf().sign(withPlaceholder, new P12Signer(p12, { passphrase }), signingTime);
 }

@@ -8,7 +8,7 @@ export function RunningHead({ h, kind }: { h: StatementHeader; kind: string }) {
   return (
     <View style={styles.runningHead} fixed>
       <Text>
-        <Text style={{ color: colour.ink, fontWeight: 600 }}>Synledger</Text>  ·  {kind}  ·  {h.siteName} ({h.siteCode})  ·  {h.period}
+        <Text style={{ color: colour.ink, fontWeight: 600 }}>Synledger</Text>  ·  {kind}  ·  {h.siteName}  ·  {h.periodLabel}
       </Text>
       <Text>
         revision <Text style={{ fontFamily: "Plex Mono" }}>{h.revision}</Text>  ·  ref <Text style={{ fontFamily: "Plex Mono" }}>{h.statementRef}</Text>
@@ -20,8 +20,8 @@ export function RunningHead({ h, kind }: { h: StatementHeader; kind: string }) {
 export function Footer({ verifyAt }: { verifyAt: string }) {
   return (
     <View style={styles.footer} fixed>
-      <Text>Digitally signed PDF. Any change to this file breaks the signature; check a copy at {verifyAt}</Text>
-      <Text render={({ pageNumber, totalPages }) => `page ${pageNumber} of ${totalPages}`} />
+      <Text style={{ flex: 1, paddingRight: 8 }}>Digitally signed PDF: any change breaks the signature. Check a copy at {verifyAt}</Text>
+      <Text style={{ width: 60, textAlign: "right" }} render={({ pageNumber, totalPages }) => `page ${pageNumber} of ${totalPages}`} />
     </View>
   );
 }
@@ -29,7 +29,7 @@ export function Footer({ verifyAt }: { verifyAt: string }) {
 export function TitleBlock({ h, title }: { h: StatementHeader; title: string }) {
   return (
     <View style={{ flexDirection: "row", justifyContent: "space-between", marginBottom: 4 }}>
-      <View style={{ flex: 1.3, paddingRight: 10 }}>
+      <View style={{ flex: 1.15, paddingRight: 10 }}>
         <Text style={styles.title}>{title}</Text>
         <Text style={styles.subtitle}>
           {h.siteName} · {h.periodLabel}
@@ -37,12 +37,12 @@ export function TitleBlock({ h, title }: { h: StatementHeader; title: string }) 
       </View>
       <View style={{ flex: 1, borderLeftWidth: 0.75, borderLeftColor: colour.rule, paddingLeft: 8 }}>
         <KeyValues
+          keyWidth={62}
           items={[
             ["Organisation", h.organisation],
-            ["Site", `${h.siteName} (${h.siteCode})`],
+            ["Installation", h.siteName],
             ["Period", h.periodLabel.includes(h.period) ? h.periodLabel : `${h.periodLabel} (${h.period})`],
             ["Revision", h.revision],
-            ["Metering reference", h.meteringReference],
             ["Prepared", `${h.preparedBy}, ${h.preparedAt}`],
           ]}
         />

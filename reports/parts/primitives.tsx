@@ -54,11 +54,12 @@ export function Status({ mark, text }: { mark: Mark; text: string }) {
   );
 }
 
-export function Section({ n, title, children, breakBefore }: { n: string; title: string; children: ReactNode; breakBefore?: boolean }) {
+/** `keep`: a short section that moves to the next page whole rather than leave its heading behind. */
+export function Section({ n, title, children, breakBefore, keep }: { n: string; title: string; children: ReactNode; breakBefore?: boolean; keep?: boolean }) {
   return (
-    <View style={styles.section} break={breakBefore}>
+    <View style={styles.section} break={breakBefore} wrap={keep ? false : undefined}>
       {/* minPresenceAhead keeps a heading from being stranded at the foot of a page. */}
-      <View style={styles.sectionHead} minPresenceAhead={70}>
+      <View style={styles.sectionHead} minPresenceAhead={110}>
         <View style={styles.sectionBar} />
         <Text style={styles.sectionNumber}>{n}</Text>
         <Text style={styles.sectionTitle}>{title}</Text>
@@ -103,12 +104,12 @@ export function DataTable<R>({ columns, rows, total, empty }: { columns: Column<
   );
 }
 
-export function KeyValues({ items }: { items: [string, ReactNode][] }) {
+export function KeyValues({ items, keyWidth }: { items: [string, ReactNode][]; keyWidth?: number }) {
   return (
     <View>
       {items.map(([k, v], i) => (
         <View key={i} style={styles.keyValue}>
-          <Text style={styles.key}>{k}</Text>
+          <Text style={keyWidth ? [styles.key, { width: keyWidth }] : styles.key}>{k}</Text>
           <View style={styles.value}>{typeof v === "string" ? <Text>{v}</Text> : v}</View>
         </View>
       ))}

@@ -43,6 +43,25 @@ export async function setUpSite(k: E2eKit, page: Page, site: Omit<JourneySite, "
   return id;
 }
 
+/** The installation identity, which a site needs before its months go for sign-off. */
+export async function setUpInstallation(k: E2eKit, page: Page, site: Omit<JourneySite, "id">): Promise<void> {
+  await page.getByRole("heading", { name: "Installation identity" }).waitFor();
+  await page.getByText("Needed before a month of this site can go for sign-off").waitFor();
+  await page.getByLabel("Operator's legal name").fill(`${site.name} Operating Company Ltd`);
+  await page.getByLabel("Competent authority").fill("Journey Regional Environment Office");
+  await page.getByLabel("Installation address").fill(`${site.name}, 3 Test Quay, Journeytown`);
+  await page.getByRole("button", { name: "Add an identifier" }).click();
+  await page.getByLabel("Scheme 1", { exact: true }).fill("EU ETS permit");
+  await page.getByLabel("Identifier 1", { exact: true }).fill(`JT-${site.code.toUpperCase()}`);
+  await page.getByLabel("Monitoring-plan reference").fill("MP-JT-01");
+  await page.getByLabel("Version", { exact: true }).fill("1");
+  await page.getByLabel("Reporting contact").fill("Journey Contact");
+  await page.getByLabel("Contact e-mail").fill("contact@journey.example");
+  await page.getByRole("button", { name: "Save installation identity" }).click();
+  await page.getByText("Installation identity saved and complete").waitFor({ timeout: 20_000 });
+  await k.shot(page, "journey-01b-installation");
+}
+
 async function addStream(page: Page, siteId: string, s: JourneyStream): Promise<void> {
   await page.getByRole("link", { name: "Add a stream" }).first().click();
   await page.waitForURL(new RegExp(`/settings/sites/${siteId}/streams/new$`));

@@ -14,7 +14,7 @@ import { DEMO_USERS } from "../../db/demo-users";
 import { PERIOD, PERIOD_LABEL } from "./journey-data";
 import { chooseAndCheck, commitImport, expectBadRowNamed, expectMonthTotals, importClean, openImport, writeJourneyFiles } from "./journey-import";
 import { tamperSignedByte } from "./journey-pdf";
-import { freshSite, setUpSite, setUpStreams, type JourneySite } from "./journey-setup";
+import { freshSite, setUpInstallation, setUpSite, setUpStreams, type JourneySite } from "./journey-setup";
 import type { E2eKit } from "./lifecycle";
 
 const user = (role: string) => DEMO_USERS.find((u) => u.roles.includes(role as never))!;
@@ -53,6 +53,10 @@ export async function journeyChecks(k: E2eKit): Promise<void> {
   await k.check("journey: administrator sets up a new site through the settings pages", async () => {
     site.id = await setUpSite(k, admin, named);
     await k.shot(admin, "journey-01-site-set-up");
+  });
+  await k.check("journey: administrator completes the installation identity its statements need", async () => {
+    need(site.id, "site set-up");
+    await setUpInstallation(k, admin, named);
   });
   let streamsReady = false;
   await k.check("journey: administrator adds its six streams (feed and fuel on one analysis key)", async () => {
@@ -129,6 +133,10 @@ export async function journeyChecks(k: E2eKit): Promise<void> {
   await k.check("journey: signatory signs the statement", async () => {
     need(sent, "sending for sign-off");
     await openReviewFromStatements(signatory);
+    await signatory.waitForLoadState("networkidle");
+    await signatory.getByLabel("I have read the statement and I make this declaration.").check();
+    const acks = signatory.locator('input[name="acknowledged"]');
+    for (let i = 0; i < (await acks.count()); i++) await acks.nth(i).check();
     await act(signatory, "Sign the statement", "Signed");
     await signatory.getByRole("link", { name: /^Download PDF \(rev\. 1\)$/ }).waitFor();
     signed = true;
@@ -158,7 +166,7 @@ export async function journeyChecks(k: E2eKit): Promise<void> {
     const answer = auditor.locator('[data-verdict="issued"]');
     await answer.waitFor({ timeout: 30_000 });
     const text = await answer.innerText();
-    assert(text.includes(`${site.name} (${site.code}), ${PERIOD_LABEL}, revision 1`), `issued answer: ${text.replace(/\s+/g, " ").slice(0, 300)}`);
+    assert(text.includes(site.name) && text.includes(`Monthly, ${PERIOD_LABEL}, revision 1`) && text.includes(`JT-${site.code.toUpperCase()}`), `issued answer: ${text.replace(/\s+/g, " ").slice(0, 300)}`);
     await k.shot(auditor, "journey-12-verify-issued");
   });
   await k.check("journey: a copy with one signed byte changed is refused as altered", async () => {

@@ -1,7 +1,8 @@
 /**
  * Browser test of review and sign-off, called from run.ts: the engineer balances an Open month of
- * the demo's Estuary site, the officer sends it for sign-off, the signatory signs, the PDF
- * downloads, and the auditor verifies it (issued) and a tampered copy (altered). Re-runnable:
+ * the demo's Estuary site, the officer sends it for sign-off, the signatory reads the preview,
+ * makes the declaration and signs, the PDF downloads, and a browser without an account verifies
+ * it (issued) and a tampered copy (altered). Re-runnable:
  * when no Open month is left, the officer first reopens a signed one.
  */
 import { readFileSync } from "node:fs";
@@ -110,9 +111,28 @@ export async function lifecycleChecks(k: E2eKit): Promise<void> {
   });
 
   const signatory = await pageAs("signatory");
-  await k.check("signatory signs it and the signed PDF downloads", async () => {
+  await k.check("signatory opens the preview, ticks the declaration and each unconfirmed value, signs, sees it seal, then the signed state", async () => {
     await signatory.goto(review);
-    await act(signatory, "Sign the statement", "Signed");
+    await signatory.waitForLoadState("networkidle");
+    // The preview is the unsigned PDF as it will be signed.
+    const preview = signatory.getByRole("link", { name: "Open the statement as it will be signed (PDF)" });
+    const res = await signatory.request.get(`${k.base}${await preview.getAttribute("href")}`);
+    assert(res.status() === 200 && res.headers()["content-type"] === "application/pdf", `preview answered ${res.status()}`);
+    assert((await res.body()).subarray(0, 5).toString() === "%PDF-", "preview is not a PDF");
+    const [popup] = await Promise.all([signatory.waitForEvent("popup"), preview.click()]);
+    await popup.close();
+    const sign = signatory.getByRole("button", { name: "Sign the statement" });
+    assert(await sign.isDisabled(), "the sign button works before the declaration is ticked");
+    await signatory.getByLabel("I have read the statement and I make this declaration.").check();
+    const acks = signatory.locator('input[name="acknowledged"]');
+    const n = await acks.count();
+    for (let i = 0; i < n; i++) await acks.nth(i).check();
+    assert(await sign.isEnabled(), "the sign button stays disabled with every box ticked");
+    await k.shot(signatory, "19-sign-ready");
+    await sign.click();
+    await signatory.getByRole("status").filter({ has: signatory.locator("progress") }).waitFor({ timeout: 10_000 });
+    await k.shot(signatory, "19b-sign-progress");
+    await signatory.getByText("Done: the month is now Signed").waitFor({ timeout: 60_000 });
     await signatory.reload();
     await k.shot(signatory, "20-review-signed");
     const link = signatory.getByRole("link", { name: /^Download PDF \(rev\. \d+\)$/ }).last();
@@ -122,11 +142,17 @@ export async function lifecycleChecks(k: E2eKit): Promise<void> {
     assert(readFileSync(pdfPath).subarray(0, 5).toString() === "%PDF-", "download is not a PDF");
   });
 
-  const auditor = await pageAs("auditor");
-  await k.check("auditor sees the statement listed and verifies the download: issued", async () => {
-    await auditor.goto(`${k.base}/statements`);
-    await auditor.getByRole("heading", { name: "Signed statements" }).waitFor();
-    await k.shot(auditor, "21-statements");
+  const member = await pageAs("auditor");
+  await k.check("the auditor sees the statement listed", async () => {
+    await member.goto(`${k.base}/statements`);
+    await member.getByRole("heading", { name: "Signed statements" }).waitFor();
+    await k.shot(member, "21-statements");
+  });
+
+  // Verification is public: a browser that never signed in checks the download.
+  const auditor = await (await k.browser.newContext({ viewport: k.viewport })).newPage();
+  auditor.setDefaultTimeout(60_000);
+  await k.check("an anonymous browser verifies the download: issued, with the installation named, then its public record", async () => {
     await auditor.goto(`${k.base}/verify`);
     // The drop zone is a client component: give it time to hydrate before handing it a file.
     await auditor.waitForLoadState("networkidle");
@@ -134,8 +160,14 @@ export async function lifecycleChecks(k: E2eKit): Promise<void> {
     await auditor.getByRole("button", { name: "Check the file" }).click();
     const answer = auditor.locator('[data-verdict="issued"]');
     await answer.waitFor({ timeout: 30_000 });
-    assert((await answer.innerText()).includes(SITE), "issued answer does not name the site");
+    const said = await answer.innerText();
+    assert(said.includes(SITE) && said.includes("Vellmar Nitrogen Company Limited"), "issued answer does not name the installation and operator");
+    assert(!auditor.url().includes("/sign-in"), "the verify page sent an anonymous visitor to sign in");
     await k.shot(auditor, "22-verify-issued");
+    await answer.getByRole("link").filter({ hasText: /^[0-9a-f-]{36}$/ }).first().click();
+    await auditor.getByText(/is the latest revision of this period/).waitFor();
+    await k.shot(auditor, "22b-verify-record");
+    await auditor.goBack();
   });
 
   await k.check("a tampered copy is refused as altered", async () => {

@@ -13,6 +13,7 @@ import { createOrg, type FixtureOrg } from "../support/fixtures";
 import { actAs } from "../support/mock-auth";
 import { createApiToken } from "@/db/queries/api-tokens";
 import { newApiToken } from "@/lib/api/tokens";
+import { isPublicRoute } from "@/lib/auth/guard";
 
 vi.mock("@/auth", () => import("../support/mock-auth"));
 vi.mock("next/cache", () => ({ revalidatePath: () => undefined, revalidateTag: () => undefined }));
@@ -52,11 +53,15 @@ function call(file: string, handler: Handler, method: string, headers: Record<st
   return handler(new Request(`${APP}${path}`, { method, headers: h, body }), { params: Promise.resolve(paramsFor(file)) });
 }
 
-async function mutatingRoutes(): Promise<{ file: string; method: string; handler: Handler }[]> {
+/** Routes that use the session. Public ones (publicRoute: statement verification) read none and change no record, so a cross-site caller gains nothing a direct caller lacks. */
+async function mutatingRoutes(which: "session" | "public" = "session"): Promise<{ file: string; method: string; handler: Handler }[]> {
   const out = [];
   for (const [file, load] of Object.entries(modules)) {
     const mod = (await load()) as Record<string, unknown>;
-    for (const method of MUTATING) if (typeof mod[method] === "function") out.push({ file, method, handler: mod[method] as Handler });
+    for (const method of MUTATING) {
+      if (typeof mod[method] !== "function" || isPublicRoute(mod[method]) !== (which === "public")) continue;
+      out.push({ file, method, handler: mod[method] as Handler });
+    }
   }
   return out;
 }
@@ -110,6 +115,19 @@ describe("every mutating route handler under app/api/v1", () => {
       }
     }
     expect(wrong).toEqual([]);
+    expect(await auditCount()).toBe(before);
+  });
+
+  it("public routes (verification) answer a cross-site caller exactly as a same-origin one and write no audit event", async () => {
+    const routes = await mutatingRoutes("public");
+    expect(routes.map((r) => `${r.method} ${r.file}`)).toEqual(["POST /app/api/v1/verify/route.ts"]);
+    const before = await auditCount();
+    for (const r of routes) {
+      const own = await call(r.file, r.handler, r.method, { origin: APP });
+      const evil = await call(r.file, r.handler, r.method, { origin: EVIL });
+      expect(evil.status).toBe(own.status);
+      expect(await evil.json()).toEqual(await own.json());
+    }
     expect(await auditCount()).toBe(before);
   });
 

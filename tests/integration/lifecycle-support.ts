@@ -8,7 +8,10 @@ import { gasAnalyses, months, readings, sites, streams } from "@/db/schema";
 import { demoYearMonths } from "@/lib/demo/scenario";
 import { HttpError } from "@/lib/auth/errors";
 import type { Role } from "@/lib/auth/roles";
+import { latestSnapshot } from "@/db/queries/snapshots";
+import { runOfSnapshot } from "@/lib/ledger/month-runs";
 import { transitionMonth, type LifecycleActor, type TransitionInput } from "@/lib/lifecycle/service";
+import { unconfirmedKeys } from "@/lib/lifecycle/sign";
 import { ensureDemoCertificate } from "@/lib/signing/demo-seed";
 import { asLifecycle, testDb } from "../support/db";
 import { createOrg, type FixtureOrg } from "../support/fixtures";
@@ -45,10 +48,21 @@ export async function monthRow(siteId: string, period: string) {
   return m;
 }
 
-/** Performs a transition at the month's current version. */
+/**
+ * Performs a transition at the month's current version. Signing makes the declaration and
+ * acknowledges the statement's unconfirmed values, as the signatory does on the review page,
+ * unless the test says otherwise.
+ */
 export async function act(org: LifecycleOrg, role: Role, siteId: string, period: string, transition: TransitionInput["transition"], more: Partial<TransitionInput> = {}) {
   const m = await monthRow(siteId, period);
-  return transitionMonth(testDb(), org.actor(role), { siteId, period, transition, expectedVersion: m.version, ...more });
+  const declared = transition === "sign" ? { declaration: true, acknowledged: await unconfirmedOf(m.id, m.revision) } : {};
+  return transitionMonth(testDb(), org.actor(role), { siteId, period, transition, expectedVersion: m.version, ...declared, ...more });
+}
+
+/** The unconfirmed values of a revision's frozen record (none when it has no snapshot). */
+export async function unconfirmedOf(monthId: string, revision: number): Promise<string[]> {
+  const snap = await latestSnapshot(testDb(), monthId, revision);
+  return snap ? unconfirmedKeys(runOfSnapshot(snap).doc) : [];
 }
 
 export async function refusal(run: () => Promise<unknown>): Promise<HttpError> {

@@ -1,9 +1,13 @@
 import type { CitedValue, FactorSet, FuelFactors } from "../factor-set-schema";
-import { TABLE_3_1_REFERENCES, TABLE_3_1_ROWS } from "./ipcc-table-3-1";
+import { TABLE_3_1_ROWS } from "./ipcc-table-3-1";
 
 function m(value: string, unit: string, source: string, extra: Partial<CitedValue> = {}): CitedValue {
-  return { value, unit, source, status: "from memory", from_memory: true, ...extra };
+  return { value, unit, source, status: "unconfirmed", ...extra };
 }
+
+// Where each confirmed value was read (2026-12; docs/provenance.md). The same provisions of
+// Reg. (EU) 2018/2066, which replaced 601/2012, could not be read then; the sources say so.
+const READ_601 = "the text of Reg. (EU) 601/2012 as published on legislation.gov.uk (official reproduction)";
 
 // The EU ETS covers only CO2 for ammonia production, so CH4 and N2O are null (outside scope).
 const naturalGas: FuelFactors = {
@@ -13,7 +17,8 @@ const naturalGas: FuelFactors = {
   co2_from_analysis: true,
   ch4: null,
   n2o: null,
-  oxidation_factor: m("1", "fraction", "Reg. (EU) 2018/2066 Art 37 (default oxidation factor 1)"),
+  oxidation_factor: { value: "1", unit: "fraction", source: "Reg. (EU) 601/2012 Art 37(1) (a value of 1 where the emission factor includes incomplete oxidation); same rule in 2018/2066 unconfirmed",
+    status: "confirmed", checked: READ_601 },
   calorific_value: m("48.0", "TJ/Gg NCV", "Reg. (EU) 2018/2066 Annex VI Table 1"),
 };
 
@@ -28,8 +33,8 @@ const purgeGas: FuelFactors = {
 };
 
 const tier = (t: number, pct: string) => ({
-  tier: t, max_uncertainty_pct: pct, status: "published" as const,
-  source: "Reg. (EU) 601/2012 Annex II Table 1 (carried into Reg. (EU) 2018/2066 Annex II)",
+  tier: t, max_uncertainty_pct: pct, status: "confirmed" as const, checked: READ_601,
+  source: "Reg. (EU) 601/2012 Annex II Table 1 (commercial standard fuels; carried into 2018/2066 Annex II, unconfirmed)",
 });
 
 export const EU_MRR: FactorSet = {
@@ -39,25 +44,26 @@ export const EU_MRR: FactorSet = {
   description: "EU MRR style: stoichiometric factor 3.664, only transfers to storage deducted, product benchmark.",
   effective: { from: "2021-01-01", to: null },
   stoichiometric_factor: { numerator: "3.664", denominator: "1", unit: "t CO2/t C",
-    source: "Reg. (EU) 601/2012 and 2018/2066 Art 25 (mass balance, 3.664 t CO2/t C)", status: "published" },
+    source: "Reg. (EU) 601/2012 Art 36(3) as corrected (3.664 t CO2/t C); mass balance, Art 25 of 2018/2066, unconfirmed", status: "confirmed", checked: READ_601 },
   fuels: { "natural-gas": naturalGas, "purge-gas": purgeGas },
   default_per_tonne: TABLE_3_1_ROWS,
   default_row: "average-natural-gas",
   benchmarks: [
     { id: "eu-ammonia-2021-2025", label: "EU ETS ammonia product benchmark 2021–2025", kind: "product-benchmark",
       value: "1.570", unit: "allowances/t NH3", applies_from: "2021-01-01", applies_to: "2025-12-31",
-      source: "Implementing Reg. (EU) 2021/447", status: "from memory", from_memory: true },
+      source: "Implementing Reg. (EU) 2021/447", status: "unconfirmed" },
     { id: "eu-ammonia-2013-2020", label: "EU ETS ammonia product benchmark 2013–2020", kind: "product-benchmark",
       value: "1.619", unit: "allowances/t NH3", applies_from: "2013-01-01", applies_to: "2020-12-31",
-      source: "Decision 2011/278/EU Annex I", status: "from memory", from_memory: true },
-    ...TABLE_3_1_REFERENCES,
+      source: "Decision 2011/278/EU Annex I", status: "unconfirmed" },
   ],
   gwp_default: "AR5",
+  // Art 49(1): subtract only CO2 transferred to capture, a transport network or a storage site
+  // for long-term geological storage; "for any other transfer … no subtraction".
   deduction_rules: {
-    urea: { deducted: false, source: "Reg. (EU) 601/2012 Art 49; Decision 2011/278/EU recitals: CO2 to urea is emitted", status: "published" },
-    storage: { deducted: true, source: "Reg. (EU) 601/2012 Art 49: transfers to capture, transport or storage", status: "published" },
-    sale: { deducted: false, source: "Reg. (EU) 601/2012 Art 49", status: "published" },
-    other: { deducted: false, source: "Reg. (EU) 601/2012 Art 49", status: "published" },
+    urea: { deducted: false, source: "Reg. (EU) 601/2012 Art 49(1): no subtraction for transfers other than to storage", status: "confirmed", checked: READ_601 },
+    storage: { deducted: true, source: "Reg. (EU) 601/2012 Art 49(1)(a)–(c): transfers to capture, transport or geological storage", status: "confirmed", checked: READ_601 },
+    sale: { deducted: false, source: "Reg. (EU) 601/2012 Art 49(1): no subtraction for transfers other than to storage", status: "confirmed", checked: READ_601 },
+    other: { deducted: false, source: "Reg. (EU) 601/2012 Art 49(1): no subtraction for transfers other than to storage", status: "confirmed", checked: READ_601 },
   },
   activity_tiers: [tier(1, "7.5"), tier(2, "5"), tier(3, "2.5"), tier(4, "1.5")],
 };

@@ -1,17 +1,18 @@
 import type { CitedValue, FactorSet, FuelFactors } from "../factor-set-schema";
 import { TABLE_3_1_REFERENCES, TABLE_3_1_ROWS } from "./ipcc-table-3-1";
 
-// Every figure below is from memory (REFERENCE-VALUES status M): check against the printed
-// Guidelines before a statement relies on it.
+// Unconfirmed, every figure below: the tables of the 2006 Guidelines could not be read in their
+// published text when the set was last checked (2026-12; docs/provenance.md). Statements list
+// them as unconfirmed and their signatory acknowledges each.
 function m(value: string, unit: string, source: string, extra: Partial<CitedValue> = {}): CitedValue {
-  return { value, unit, source, status: "from memory", from_memory: true, ...extra };
+  return { value, unit, source, status: "unconfirmed", ...extra };
 }
 
 const V2 = "IPCC 2006 Guidelines Vol 2 Ch";
 
 const gaseousNonCo2 = {
   ch4: m("1", "kg CH4/TJ NCV", `${V2} 2 Table 2.2 (natural gas, energy industries)`),
-  n2o: m("0.1", "kg N2O/TJ NCV", `${V2} 2 Table 2.3 (natural gas, energy industries)`),
+  n2o: m("0.1", "kg N2O/TJ NCV", `${V2} 2 Table 2.2 (natural gas, energy industries)`),
   oxidation_factor: m("1", "fraction", `${V2} 1 §1.4.2.1 (default oxidation factor 1); Vol 3 §3.2 COF = 1`),
 };
 
@@ -43,17 +44,17 @@ export const IPCC_2006: FactorSet = {
   description: "Tier 1 defaults of the 2006 IPCC Guidelines; carbon-content tiers use the month's analyses.",
   effective: { from: "2006-01-01", to: null },
   stoichiometric_factor: { numerator: "44", denominator: "12", unit: "t CO2/t C",
-    source: "IPCC 2006 Guidelines Vol 3 Ch 3 Eq 3.1 (44/12)", status: "from memory", from_memory: true },
+    source: "IPCC 2006 Guidelines Vol 3 Ch 3 Eq 3.1 (44/12)", status: "unconfirmed" },
   fuels: { "natural-gas": naturalGas, "purge-gas": purgeGas },
   default_per_tonne: TABLE_3_1_ROWS,
   default_row: "average-natural-gas",
   benchmarks: TABLE_3_1_REFERENCES,
   gwp_default: "AR5",
   deduction_rules: {
-    urea: { deducted: true, source: "IPCC 2006 Vol 3 §3.2 Eq 3.1, R(CO2) recovered for urea", status: "from memory", from_memory: true,
+    urea: { deducted: true, source: "IPCC 2006 Vol 3 §3.2 Eq 3.1, R(CO2) recovered for urea", status: "unconfirmed",
       note: "counted instead where the urea is applied (Vol 4 Ch 11)" },
-    storage: { deducted: true, source: "IPCC 2006 Vol 3 §3.2 Eq 3.1, R(CO2) recovered; Vol 2 Ch 5 storage", status: "from memory", from_memory: true },
-    sale: { deducted: false, source: "IPCC 2006 Vol 3 §3.2 (our reading: only urea and storage recovery are R)", status: "from memory", from_memory: true },
-    other: { deducted: false, source: "IPCC 2006 Vol 3 §3.2 (our reading)", status: "from memory", from_memory: true },
+    storage: { deducted: true, source: "IPCC 2006 Vol 3 §3.2 Eq 3.1, R(CO2) recovered; Vol 2 Ch 5 storage", status: "unconfirmed" },
+    sale: { deducted: false, source: "IPCC 2006 Vol 3 §3.2 (our reading: only urea and storage recovery are R)", status: "unconfirmed" },
+    other: { deducted: false, source: "IPCC 2006 Vol 3 §3.2 (our reading)", status: "unconfirmed" },
   },
 };

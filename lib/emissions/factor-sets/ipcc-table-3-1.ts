@@ -2,15 +2,15 @@ import type { Benchmark, CitedValue, PerTonneRow } from "../factor-set-schema";
 
 /**
  * IPCC 2006 Guidelines Vol 3 Ch 3 Table 3.1 (ammonia, total fuel requirement and default CO2 per
- * tonne). All figures are from memory (REFERENCE-VALUES status M) and are stored as the table
- * prints them: 3.273 for partial oxidation is kept, not recomputed (it implies 18.6 kg C/GJ, not
- * the natural-gas 15.3). Every built-in set carries these rows so a screening estimate is possible
- * under any set; they are a reference, not the regulation of the US or EU sets.
+ * tonne). All figures are unconfirmed (the table could not be read in its published text when the
+ * set was last checked, 2026-12; docs/provenance.md) and are stored as the table is cited: 3.273 for partial oxidation is kept, not recomputed (it implies 18.6 kg C/GJ, not
+ * the natural-gas 15.3). Every built-in set carries the rows so a screening estimate is possible
+ * under any set; only the IPCC set shows them as benchmarks (they are not the US or EU rules).
  */
 const SRC = "IPCC 2006 Guidelines Vol 3 Ch 3 Table 3.1";
 
 function m(value: string, unit: string, uncertainty_pct?: string, note?: string): CitedValue {
-  return { value, unit, source: SRC, status: "from memory", from_memory: true,
+  return { value, unit, source: SRC, status: "unconfirmed",
     ...(uncertainty_pct ? { uncertainty_pct } : {}), ...(note ? { note } : {}) };
 }
 
@@ -38,7 +38,7 @@ export const TABLE_3_1_ROWS: PerTonneRow[] = [
 /** Table 3.1 figures shown beside a site's intensity as context (not a regulatory benchmark). */
 export const TABLE_3_1_REFERENCES: Benchmark[] = [
   { id: "ipcc-modern-conventional", label: "IPCC Table 3.1, modern conventional reforming", kind: "reference",
-    value: "1.694", unit: "t CO2/t NH3", applies_from: null, applies_to: null, source: SRC, status: "from memory", from_memory: true },
+    value: "1.694", unit: "t CO2/t NH3", applies_from: null, applies_to: null, source: SRC, status: "unconfirmed" },
   { id: "ipcc-average-natural-gas", label: "IPCC Table 3.1, average natural-gas plant", kind: "reference",
-    value: "2.104", unit: "t CO2/t NH3", applies_from: null, applies_to: null, source: SRC, status: "from memory", from_memory: true },
+    value: "2.104", unit: "t CO2/t NH3", applies_from: null, applies_to: null, source: SRC, status: "unconfirmed" },
 ];

@@ -76,6 +76,8 @@ export const apiRows: MatrixRow[] = [
         params({ ...month(c), key: "grid-gas" }),
       ),
   },
+  // A month not In review answers 409 (after the gate): access is what the row checks.
+  { id: "GET /api/v1/sites/[siteId]/months/[month]/statement-preview", allowed: ROLES, call: async (c) => (await import("@/app/api/v1/sites/[siteId]/months/[month]/statement-preview/route")).GET(req("GET"), params(await withMonth(c))) },
   { id: "GET /api/v1/sites/[siteId]/months/[month]/result", allowed: ROLES, call: async (c) => (await import("@/app/api/v1/sites/[siteId]/months/[month]/result/route")).GET(req("GET"), params(await withMonth(c))) },
   {
     id: "PUT /api/v1/sites/[siteId]/months/[month]/method",

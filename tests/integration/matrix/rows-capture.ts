@@ -40,6 +40,22 @@ export const captureRows: MatrixRow[] = [
     call: async ({ target }) => (await actions()).editSite(target.siteId, { ...SITE_DEFAULTS, name: "Renamed works", code: `r-${tag()}` }),
   },
   {
+    id: "app/(app)/settings/sites/actions.ts#saveInstallation",
+    allowed: ["administrator"],
+    call: async ({ target }) =>
+      (await actions()).saveInstallation(target.siteId, {
+        operatorName: `Matrix operator ${tag()}`,
+        identifiers: [{ scheme: "EU ETS permit", identifier: `M-${tag()}` }],
+        address: "1 Matrix Road",
+        competentAuthority: "Matrix Agency",
+        monitoringPlanRef: "MP-1",
+        monitoringPlanVersion: "1",
+        contactName: "Matrix Contact",
+        contactEmail: "contact@matrix.example",
+        contactPhone: "",
+      }),
+  },
+  {
     id: "app/(app)/settings/sites/actions.ts#archiveSite",
     allowed: ["administrator"],
     call: async ({ target }) => (await actions()).archiveSite(target.siteId, true),

@@ -16,7 +16,7 @@ function siteSet(): Record<string, unknown> {
   json.fuels["site-gas"] = {
     ...json.fuels["natural-gas"],
     label: "Pipeline gas, site laboratory",
-    co2: { value: "55800", unit: "kg CO2/TJ NCV", uncertainty_pct: "1.0", source: "Site laboratory report L-2024-07", status: "published" },
+    co2: { value: "55800", unit: "kg CO2/TJ NCV", uncertainty_pct: "1.0", source: "Site laboratory report L-2024-07", status: "confirmed", checked: "report L-2024-07 as filed by the site" },
     co2_from_analysis: false,
   };
   json.fuel_by_analysis = { ng: "site-gas" };
@@ -39,14 +39,14 @@ describe("factor set schema", () => {
   it("a broken set is rejected with the JSON path of each fault", () => {
     const broken = siteSet() as Record<string, Json>;
     broken.fuels["natural-gas"].co2.value = "fifty-six thousand";
-    broken.deduction_rules.urea.status = "published"; // while from_memory stays true
+    broken.deduction_rules.urea.status = "confirmed"; // without saying where it was read
     delete broken.stoichiometric_factor.denominator;
     const r = parseFactorSet(broken);
     expect(r.ok).toBe(false);
     if (r.ok) return;
     const paths = r.issues.map((i) => i.path);
     expect(paths).toContain('$.fuels["natural-gas"].co2.value');
-    expect(paths).toContain("$.deduction_rules.urea.from_memory");
+    expect(paths).toContain("$.deduction_rules.urea.checked");
     expect(paths).toContain("$.stoichiometric_factor.denominator");
     expect(() => new FactorSetRegistry([broken])).toThrow(FactorSetError);
   });
@@ -68,14 +68,27 @@ describe("factor set schema", () => {
   });
 });
 
-describe("built-in sets mark their provenance as REFERENCE-VALUES does", () => {
-  it("IPCC figures are from memory; 40 CFR 98 Table C-1/C-2 and the EU 3.664 are published", () => {
-    expect(IPCC_2006.fuels["natural-gas"].co2).toMatchObject({ value: "56100", from_memory: true });
-    expect(US_40CFR98.fuels["natural-gas"].co2).toMatchObject({ value: "53.06", status: "published" });
-    expect(US_40CFR98.fuels["natural-gas"].ch4).toMatchObject({ value: "1.0E-03", status: "published" });
-    expect(US_40CFR98.fuels["natural-gas"].default_energy_per_volume).toMatchObject({ value: "1.026E-03", volume_unit: "scf" });
-    expect(EU_MRR.stoichiometric_factor).toMatchObject({ numerator: "3.664", status: "published" });
-    expect(EU_MRR.benchmarks.find((b) => b.id === "eu-ammonia-2021-2025")).toMatchObject({ value: "1.570", from_memory: true });
+describe("built-in sets record provenance as docs/provenance.md does", () => {
+  it("IPCC tables unconfirmed; 40 CFR 98 Tables C-1/C-2, Eq G-1, and EU 601/2012 Art 36(3), 37(1), 49(1), Annex II confirmed", () => {
+    expect(IPCC_2006.fuels["natural-gas"].co2).toMatchObject({ value: "56100", status: "unconfirmed" });
+    // 40 CFR 98 Table C-1: natural gas 53.06 kg CO2/mmBtu, 1.026 × 10^-3 mmBtu/scf; Table C-2: 1.0 × 10^-3 kg CH4, 1.0 × 10^-4 kg N2O per mmBtu.
+    expect(US_40CFR98.fuels["natural-gas"].co2).toMatchObject({ value: "53.06", status: "confirmed" });
+    expect(US_40CFR98.fuels["natural-gas"].ch4).toMatchObject({ value: "1.0E-03", status: "confirmed" });
+    expect(US_40CFR98.fuels["natural-gas"].n2o).toMatchObject({ value: "1.0E-04", status: "confirmed" });
+    expect(US_40CFR98.fuels["natural-gas"].default_energy_per_volume).toMatchObject({ value: "1.026E-03", volume_unit: "scf", status: "confirmed" });
+    // Reg. (EU) 601/2012 Art 36(3): 3.664 t CO2/t C; Art 37(1): oxidation factor 1; Art 49(1): only transfers to storage deducted.
+    expect(EU_MRR.stoichiometric_factor).toMatchObject({ numerator: "3.664", status: "confirmed" });
+    expect(EU_MRR.fuels["natural-gas"].oxidation_factor).toMatchObject({ value: "1", status: "confirmed" });
+    expect(EU_MRR.deduction_rules).toMatchObject({ storage: { deducted: true, status: "confirmed" }, urea: { deducted: false, status: "confirmed" }, sale: { deducted: false } });
+    expect(EU_MRR.benchmarks.find((b) => b.id === "eu-ammonia-2021-2025")).toMatchObject({ value: "1.570", status: "unconfirmed" });
+    // Reg. (EU) 601/2012 Annex II Table 1: ± 7.5 / 5 / 2.5 / 1.5 % for tiers 1–4.
     expect(EU_MRR.activity_tiers?.map((t) => t.max_uncertainty_pct)).toEqual(["7.5", "5", "2.5", "1.5"]);
+  });
+  it("every confirmed value says where its published text was read; the US and EU sets show no IPCC benchmark", () => {
+    const all = (v: unknown): { status: string; checked?: string }[] =>
+      v && typeof v === "object" ? [...("status" in v ? [v as { status: string; checked?: string }] : []), ...Object.values(v).flatMap(all)] : [];
+    for (const set of BUILT_IN_FACTOR_SETS) for (const c of all(set)) if (c.status === "confirmed") expect(c.checked?.length, set.id).toBeGreaterThan(10);
+    expect(US_40CFR98.benchmarks).toEqual([]);
+    expect(EU_MRR.benchmarks.every((b) => b.kind === "product-benchmark")).toBe(true);
   });
 });

@@ -6,28 +6,28 @@ import { d, gas, plant, relDiff, stream, withMethod } from "./fixtures";
 
 const row = (id: string) => IPCC_2006.default_per_tonne.find((r) => r.id === id)!;
 
-describe("IPCC 2006 Vol 3 Table 3.1 defaults follow from Eq 3.1 (from memory)", () => {
-  it("modern conventional reforming: 30.2 GJ/t × 15.3 kg C/GJ × 44/12 = 1.694 t CO2/t (Table 3.1, from memory)", () => {
+describe("IPCC 2006 Vol 3 Table 3.1 defaults follow from Eq 3.1 (unconfirmed)", () => {
+  it("modern conventional reforming: 30.2 GJ/t × 15.3 kg C/GJ × 44/12 = 1.694 t CO2/t (Table 3.1, unconfirmed)", () => {
     const byHand = d("30.2").times("15.3").times(44).div(12).div(1000); // 1.69422
     expect(byHand.toDecimalPlaces(3).toString()).toBe("1.694");
     expect(row("modern-conventional-reforming").co2_t_per_t.value).toBe("1.694");
   });
-  it("average natural-gas plant: 37.5 GJ/t × 15.3 × 44/12 = 2.104 t CO2/t (Table 3.1, from memory)", () => {
+  it("average natural-gas plant: 37.5 GJ/t × 15.3 × 44/12 = 2.104 t CO2/t (Table 3.1, unconfirmed)", () => {
     const byHand = d("37.5").times("15.3").times(44).div(12).div(1000); // 2.10375
     expect(byHand.toDecimalPlaces(3).toString()).toBe("2.104");
     expect(row("average-natural-gas").co2_t_per_t.value).toBe("2.104");
   });
-  it("partial oxidation 3.273 is stored as printed, not recomputed from 15.3 (REFERENCE-VALUES note, from memory)", () => {
+  it("partial oxidation 3.273 is stored as printed, not recomputed from 15.3 (REFERENCE-VALUES note, unconfirmed)", () => {
     expect(row("average-partial-oxidation").co2_t_per_t.value).toBe("3.273");
     expect(d("48.0").times("15.3").times(44).div(12).div(1000).toDecimalPlaces(3).eq("3.273")).toBe(false);
   });
-  it("IPCC Vol 2 Table 1.4 56 100 kg/TJ = Table 1.3 15.3 kg C/GJ × 44/12 × 1000, to the table's rounding (from memory)", () => {
+  it("IPCC Vol 2 Table 1.4 56 100 kg/TJ = Table 1.3 15.3 kg C/GJ × 44/12 × 1000, to the table's rounding (unconfirmed)", () => {
     const ng = IPCC_2006.fuels["natural-gas"];
     const fromCarbon = d(ng.carbon_content!.value).times(44).div(12).times(1000);
     expect(Math.abs(fromCarbon.minus(ng.co2!.value).toNumber())).toBeLessThanOrEqual(50); // table prints to 100 kg/TJ
-    expect(ng.co2!.from_memory).toBe(true);
+    expect(ng.co2!.status).toBe("unconfirmed");
   });
-  it("default-factor method: 46 500 t NH3 × 2.104 = 97 836 t CO2, labelled a screening estimate (Table 3.1, from memory)", () => {
+  it("default-factor method: 46 500 t NH3 × 2.104 = 97 836 t CO2, labelled a screening estimate (Table 3.1, unconfirmed)", () => {
     const r = computeEmissions(withMethod(plant(), { emissions: "default-factor" }));
     expect(r.emissions.co2_t.toString()).toBe("97836");
     expect(r.screening_estimate).toBe(true);
@@ -67,7 +67,7 @@ describe("40 CFR 98 Subpart C factors on a fuel quantity in MMBtu", () => {
 });
 
 describe("EU MRR stoichiometric factor 3.664 versus 44/12", () => {
-  it("the same carbon gives results 0.07 % apart (MRR Art 25, published; IPCC Eq 3.1, from memory)", () => {
+  it("the same carbon gives results 0.07 % apart (MRR 601/2012 Art 36(3), confirmed; IPCC Eq 3.1, unconfirmed)", () => {
     const ipcc = computeEmissions(plant());
     const eu = computeEmissions(withMethod(plant(), { factor_set: "eu-mrr" }));
     expect(ipcc.emissions.co2_t.toString()).toBe("77000");              // 21 000 t C × 44/12
@@ -77,7 +77,7 @@ describe("EU MRR stoichiometric factor 3.664 versus 44/12", () => {
     expect(EU_MRR.stoichiometric_factor.numerator).toBe("3.664");
     expect(US_40CFR98.stoichiometric_factor).toMatchObject({ numerator: "44", denominator: "12" });
   });
-  it("fuel-calculation with a set factor: 1 000 TJ NCV × 56 100 kg/TJ = 56 100 t (IPCC Vol 2 Table 1.4, from memory)", () => {
+  it("fuel-calculation with a set factor: 1 000 TJ NCV × 56 100 kg/TJ = 56 100 t (IPCC Vol 2 Table 1.4, unconfirmed)", () => {
     const feed = gas("feed", "feed-gas", "20000", "1.5", { withCarbon: false }); // 1 000 000 GJ LHV, no carbon figure
     const r = computeEmissions(plant({ method: { emissions: "fuel-calculation", factor_set: "ipcc-2006", gwp: "AR5" }, streams: [feed] }));
     expect(r.emissions.co2_t.toString()).toBe("56100");

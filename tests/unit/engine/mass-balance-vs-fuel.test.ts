@@ -65,7 +65,7 @@ describe("carbon mass balance and fuel calculation agree where both apply", () =
   it("the plant closes its carbon balance (outlets built from the analysis, hand calc)", () => {
     expect(mb.balances.carbon.closure_pct!.abs().lt("1e-20")).toBe(true);
   });
-  it("mass balance: carbon in × 44/12 (IPCC 2006 Vol 3 Eq 3.1, from memory)", () => {
+  it("mass balance: carbon in × 44/12 (IPCC 2006 Vol 3 Eq 3.1, unconfirmed)", () => {
     expect(rel(mb.emissions.emissions.co2_t, carbonT.times(44).div(12))).toBeLessThan(1e-15);
   });
   it("fuel calculation with the site factor from the same analysis gives the same CO2, stream by stream", () => {
@@ -95,7 +95,7 @@ describe("carbon mass balance and fuel calculation agree where both apply", () =
     const registry = new FactorSetRegistry([{
       ...IPCC_2006, id: "site-methane", name: "test set: fixed methane factor",
       fuels: { ...IPCC_2006.fuels, "natural-gas": { ...IPCC_2006.fuels["natural-gas"], co2_from_analysis: false,
-        co2: { value: factor.toFixed(25), unit: "kg CO2/TJ NCV", source: "calculated here from CIAAW 12.011 and ISO 6976:2016 methane 802.69 kJ/mol", status: "published" } } },
+        co2: { value: factor.toFixed(25), unit: "kg CO2/TJ NCV", source: "calculated here from CIAAW 12.011 and ISO 6976:2016 methane 802.69 kJ/mol", status: "confirmed", checked: "computed in this test" } } },
     }]);
     const doc = plant("fuel-calculation", "site-methane");
     doc.analyses.gas = { components: { CH4: new D(100) } } as typeof doc.analyses.gas;

@@ -4,10 +4,11 @@ import { count, eq } from "drizzle-orm";
 import { revalidatePath } from "next/cache";
 import { getDb } from "@/db";
 import { recordAudit } from "@/db/queries/audit";
-import { followSiteDefaults, insertSite, lockSite, setSiteArchived, siteSnapshot, updateSite } from "@/db/queries/site-admin";
+import { followSiteDefaults, insertSite, lockSite, setInstallation, setSiteArchived, siteSnapshot, updateSite } from "@/db/queries/site-admin";
 import { insertStream, lockStream, streamSnapshot, updateStream } from "@/db/queries/streams";
 import { readings } from "@/db/schema";
 import { guardedAction, type ActionResult, type Actor } from "@/lib/auth/guard";
+import { EMPTY_INSTALLATION, installationSchema, missingInstallationFields, type InstallationInput } from "@/lib/validations/installation";
 import { siteSchema, type SiteInput } from "@/lib/validations/site";
 import { streamSchema, type StreamInput } from "@/lib/validations/stream";
 
@@ -75,6 +76,34 @@ export async function editSite(siteId: string, raw: SiteInput): Promise<ActionRe
       if (uniqueViolation(err) === "sites_org_code_key") return codeTaken(values.code);
       throw err;
     }
+  });
+  if (result.ok) revalidatePath(LIST, "layout");
+  return result;
+}
+
+/**
+ * The installation identity of a site. Saved as far as it is known (only what is typed is
+ * checked); months go for sign-off once it is complete. Months already frozen keep the identity
+ * they were frozen with.
+ */
+export async function saveInstallation(siteId: string, raw: InstallationInput): Promise<ActionResult> {
+  const result = await guardedAction("site:manage", "change sites", async (actor) => {
+    const values = installationSchema.parse(raw);
+    return getDb().transaction(async (tx): Promise<ActionResult> => {
+      const before = await lockSite(tx, actor.organisationId, siteId);
+      if (!before) return { ok: false, message: "That site was not found; reload the page." };
+      const old = before.installation ?? EMPTY_INSTALLATION;
+      if (JSON.stringify(old) === JSON.stringify(values)) return { ok: true, message: "Nothing changed." };
+      await setInstallation(tx, before.id, values);
+      await recordAudit(tx, { ...audit(actor, before.id), action: "site.installation-changed", entity: "site", entityId: before.id, before: before.installation, after: values });
+      const missing = missingInstallationFields(values);
+      return {
+        ok: true,
+        message: missing.length
+          ? `Installation identity saved. Still needed before sign-off: ${missing.map((m) => m.label).join("; ")}.`
+          : "Installation identity saved and complete. Months already sent for sign-off keep the identity they were frozen with.",
+      };
+    });
   });
   if (result.ok) revalidatePath(LIST, "layout");
   return result;

@@ -1,7 +1,9 @@
 import { NextResponse } from "next/server";
 import { getDb } from "@/db";
 import { HttpError } from "@/lib/auth/errors";
-import { apiRoute } from "@/lib/auth/guard";
+import { publicRoute } from "@/lib/auth/guard";
+import { clientAddressOf } from "@/lib/net/forwarded";
+import { countRequest, VERIFY_LIMIT } from "@/lib/net/rate-limit";
 import { verificationAnswer } from "@/lib/lifecycle/verification-answer";
 import { readLimitedBytes, readLimitedForm } from "@/lib/import/read-multipart";
 import { verifyStatementPdf } from "@/lib/signing/verify";
@@ -27,12 +29,20 @@ async function uploadedPdf(req: Request): Promise<Buffer> {
 }
 
 /**
- * Checks a PDF against the signed statements of the caller's organisation: issued, altered or
- * unknown, with the explanation a verifier needs. Any member may ask, auditors included; the
- * file is read, hashed and forgotten, never stored.
+ * Checks a PDF against every stored statement: issued, superseded (naming the revision that
+ * replaced it), altered or unknown, with the explanation a verifier needs and the statement's
+ * public facts only. Anyone holding a copy may ask, without an account; 30 requests a minute per
+ * caller address (429 with Retry-After beyond). The file is read, hashed and forgotten.
  */
-export const POST = apiRoute("org:read", "verify statements", async (req, actor) => {
+export const POST = publicRoute(async (req) => {
+  const rate = await countRequest(getDb(), VERIFY_LIMIT.bucket, clientAddressOf(req.headers), VERIFY_LIMIT.perMinute);
+  if (!rate.allowed) {
+    return NextResponse.json(
+      { error: { code: "rate_limited", message: `Too many verification requests from your address this minute (limit ${rate.limit}); try again in ${rate.retryAfterSeconds} s.` } },
+      { status: 429, headers: { "Retry-After": String(rate.retryAfterSeconds) } },
+    );
+  }
   const pdf = await uploadedPdf(req);
-  const verdict = await verifyStatementPdf(getDb(), { organisationId: actor.organisationId }, pdf);
-  return NextResponse.json(verificationAnswer(verdict));
+  const verdict = await verifyStatementPdf(getDb(), { anyOrganisation: true }, pdf);
+  return NextResponse.json(verificationAnswer(verdict), { headers: { "Cache-Control": "no-store" } });
 });

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { ArchiveSiteButton } from "@/components/sites/archive-site-button";
+import { InstallationForm } from "@/components/sites/installation-form";
 import { SiteForm } from "@/components/sites/site-form";
 import { StreamsDataTable } from "@/components/sites/streams-table/data-table";
 import { StreamsEmptyState } from "@/components/sites/streams-table/empty-state";
@@ -14,6 +15,7 @@ import { monthsReachedBySetup } from "@/db/queries/site-admin";
 import { listStreams } from "@/db/queries/streams";
 import { SetupReach } from "@/components/sites/setup-reach";
 import { requirePageActor } from "@/lib/auth/guard";
+import { EMPTY_INSTALLATION } from "@/lib/validations/installation";
 
 export const metadata: Metadata = { title: "Site set-up" };
 
@@ -65,6 +67,13 @@ export default async function SiteSettingsPage({ params, searchParams }: { param
             gwp: site.gwp as never,
           }}
         />
+      </section>
+      <section aria-labelledby="installation-heading" className="max-w-4xl border border-rule bg-white p-5">
+        <h2 id="installation-heading" className="text-base font-semibold">
+          Installation identity
+        </h2>
+        <p className="mb-4 text-sm text-ink-soft">Who the statements are issued by and for, as the competent authority and a verifier will look them up.</p>
+        <InstallationForm siteId={site.id} defaults={{ ...EMPTY_INSTALLATION, ...(site.installation ?? {}) }} />
       </section>
       <section aria-labelledby="streams-heading" className="space-y-3">
         <div className="flex flex-wrap items-end justify-between gap-3">

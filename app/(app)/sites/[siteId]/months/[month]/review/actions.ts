@@ -18,6 +18,8 @@ const transitionSchema = z.object({
   reason: z.string().max(4000, "at most 4000 characters").optional(),
   reference: z.string().max(120).optional(),
   submittedOn: z.string().max(10).optional(),
+  /** sign: the declaration checkbox ("yes" when ticked). */
+  declaration: z.literal("yes").optional(),
 });
 
 /**
@@ -28,8 +30,10 @@ export async function transitionAction(_prev: ActionResult | null, formData: For
   const raw = Object.fromEntries([...formData.entries()].filter(([k, v]) => !k.startsWith("$") && typeof v === "string"));
   let notified = 0;
   const result = await guardedAction<undefined>("org:read", "change the month's state", async (actor) => {
-    const input = transitionSchema.parse(raw);
-    const out = await transitionMonth(getDb(), actor, input);
+    const { declaration, ...input } = transitionSchema.parse(raw);
+    // One checkbox per unconfirmed value, each named "acknowledged": every ticked one arrives.
+    const acknowledged = formData.getAll("acknowledged").filter((v): v is string => typeof v === "string" && v.length <= 200).slice(0, 200);
+    const out = await transitionMonth(getDb(), actor, { ...input, declaration: declaration === "yes", acknowledged });
     notified = out.notified;
     const mail = out.notified ? ` ${out.notified} ${out.notified === 1 ? "person was" : "people were"} notified.` : "";
     return { ok: true, message: `Done: the month is now ${STATE_LABELS[out.state]} (revision ${out.revision}).${mail}` };

@@ -155,6 +155,15 @@ export default async function ReviewPage({ params, searchParams }: { params: Pro
               period={period}
               pre={data.pre}
               action={transitionAction}
+              sign={
+                data.model
+                  ? {
+                      previewHref: `/api/v1/sites/${site.id}/months/${period}/statement-preview`,
+                      declaration: data.model.signOff.declaration,
+                      unconfirmed: data.model.unconfirmed,
+                    }
+                  : undefined
+              }
             />
             <Section id="signed-pdfs" title="Signed statements">
               <SignedPdfList statements={data.statements} />

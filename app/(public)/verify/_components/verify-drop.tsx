@@ -1,12 +1,13 @@
 "use client";
 
+import Link from "next/link";
 import { useActionState, useRef, useState, type DragEvent } from "react";
 import { Notice } from "@/components/ui/status";
-import { buttonPrimary } from "@/components/ui/styles";
+import { buttonPrimary, link } from "@/components/ui/styles";
 import type { ActionResult } from "@/lib/auth/guard";
-import type { VerificationAnswer } from "@/lib/lifecycle/verification-answer";
+import type { PublicStatementFacts, VerificationAnswer } from "@/lib/lifecycle/verification-answer";
 
-const TONE = { issued: "ok", altered: "fault", unknown: "warn" } as const;
+const TONE = { issued: "ok", superseded: "warn", altered: "fault", unknown: "warn" } as const;
 
 type Action = (prev: ActionResult<VerificationAnswer> | null, formData: FormData) => Promise<ActionResult<VerificationAnswer>>;
 
@@ -67,41 +68,68 @@ function AnswerView({ file, a }: { file: string; a: VerificationAnswer }) {
           ))}
         </ul>
       </Notice>
-      <dl className="grid gap-x-4 gap-y-1 border border-rule bg-white px-4 py-3 text-sm sm:grid-cols-[9rem_1fr]">
+      <dl className="grid gap-x-4 gap-y-1 border border-rule bg-white px-4 py-3 text-sm sm:grid-cols-[10rem_1fr]">
         <dt className="text-ink-soft">File</dt>
-        <dd>{file}</dd>
+        <dd className="break-all">{file}</dd>
         <dt className="text-ink-soft">Its SHA-256</dt>
         <dd className="num break-all text-xs">{a.sha256}</dd>
-        {s ? (
-          <>
-            <dt className="text-ink-soft">{a.verdict === "issued" ? "Statement" : "Claims to be"}</dt>
-            <dd>
-              {s.site} ({s.siteCode}), {s.periodLabel}, revision {s.revision}
-            </dd>
-            <dt className="text-ink-soft">Signed by</dt>
-            <dd>
-              {s.signer} ({s.signerRole}), <span className="num">{s.signedAtText}</span>
-            </dd>
-            <dt className="text-ink-soft">Stored SHA-256</dt>
-            <dd className="num break-all text-xs">{s.sha256}</dd>
-            {/* Key figures only for a verified copy: beside an altered file they would read as its content. */}
-            {(a.verdict === "issued" ? Object.entries(s.summary) : []).map(([k, v]) => (
-              <div key={k} className="contents">
-                <dt className="text-ink-soft">{SUMMARY_LABELS[k] ?? k}</dt>
-                <dd className="num">{v}</dd>
-              </div>
-            ))}
-          </>
-        ) : null}
       </dl>
+      {s ? (
+        <div className="space-y-1">
+          <h3 className="text-sm font-semibold">{a.verdict === "altered" ? "The statement it claims to be" : "The statement"}</h3>
+          {/* Key figures only for a copy that is the stored file: beside an altered one they would read as its content. */}
+          <FactsList s={s} figures={a.verdict !== "altered"} />
+        </div>
+      ) : null}
+      {a.supersededBy ? (
+        <p className="text-sm">
+          Replaced by{" "}
+          <Link className={link} href={`/verify/${a.supersededBy.reference}`}>
+            revision {a.supersededBy.revision}, reference {a.supersededBy.reference}
+          </Link>
+          .
+        </p>
+      ) : null}
     </div>
   );
 }
 
-const SUMMARY_LABELS: Record<string, string> = {
-  ammonia: "Ammonia",
-  grossCo2: "Gross CO2",
-  netCo2: "Net CO2",
-  co2e: "CO2e",
-  intensity: "Intensity",
-};
+/** A statement's public facts: installation, period, kind, revision, signer and time, the stored digest and, when asked, the key figures. */
+export function FactsList({ s, figures }: { s: PublicStatementFacts; figures: boolean }) {
+  return (
+    <dl className="grid gap-x-4 gap-y-1 border border-rule bg-white px-4 py-3 text-sm sm:grid-cols-[10rem_1fr]">
+      <dt className="text-ink-soft">Installation</dt>
+      <dd>{s.installation}</dd>
+      <dt className="text-ink-soft">Operator</dt>
+      <dd>{s.operator ?? "not recorded in this statement"}</dd>
+      <dt className="text-ink-soft">Identifiers</dt>
+      <dd className="num">{s.identifiers ?? "not recorded in this statement"}</dd>
+      <dt className="text-ink-soft">Statement</dt>
+      <dd>
+        {s.kind === "monthly" ? "Monthly" : "Annual"}, {s.periodLabel}, revision {s.revision}
+      </dd>
+      <dt className="text-ink-soft">Signed by</dt>
+      <dd>
+        {s.signer} ({s.signerRole}), <span className="num">{s.signedAtText}</span>
+      </dd>
+      <dt className="text-ink-soft">Reference</dt>
+      <dd className="num break-all text-xs">
+        <Link className={link} href={`/verify/${s.reference}`}>
+          {s.reference}
+        </Link>
+      </dd>
+      <dt className="text-ink-soft">Stored SHA-256</dt>
+      <dd className="num break-all text-xs">{s.sha256}</dd>
+      <dt className="text-ink-soft">Certificate, SHA-256</dt>
+      <dd className="num break-all text-xs">{s.certificateFingerprint}</dd>
+      {figures
+        ? s.figures.map((f) => (
+            <div key={f.label} className="contents">
+              <dt className="text-ink-soft">{f.label}</dt>
+              <dd className="num">{f.value}</dd>
+            </div>
+          ))
+        : null}
+    </dl>
+  );
+}
