@@ -76,23 +76,48 @@ export function gasProperties(pct: Composition): GasProperties {
   };
 }
 
+// Speed: the per-component values below depend only on the component and the reference, and
+// the per-gas values only on an analysis, which is never changed once computed. Both are kept
+// the first time they are worked out (the same Decimal either way, so no figure moves).
+const perComponent = new Map<string, Dec>();
+function memo(kind: string, c: Component, ref: Reference, work: () => Dec): Dec {
+  const key = `${kind}|${c}|${ref}`;
+  let v = perComponent.get(key);
+  if (v === undefined) perComponent.set(key, (v = work()));
+  return v;
+}
+const perGas = new WeakMap<GasProperties, Map<string, unknown>>();
+function memoGas<T>(gas: GasProperties, key: string, work: () => T): T {
+  let m = perGas.get(gas);
+  if (!m) perGas.set(gas, (m = new Map()));
+  if (!m.has(key)) m.set(key, work());
+  return m.get(key) as T;
+}
+
 /** Summation factor at a metering reference; 60/68 °F extrapolated linearly from the 0 and 15 °C values. */
 export function summationFactor(c: Component, ref: Reference): Dec {
   const { s0, s15 } = COMPONENT_DATA[c];
   if (ref === "0C") return s0;
   if (ref === "15C") return s15;
-  return s15.plus(s15.minus(s0).div(15).times(REFERENCES[ref].tC.minus(15)));
+  return memo("s", c, ref, () => s15.plus(s15.minus(s0).div(15).times(REFERENCES[ref].tC.minus(15))));
 }
 
 export function compressibility(gas: GasProperties, ref: Reference): Dec {
-  const s = sum(Object.entries(gas.fractions).map(([c, x]) => x.times(summationFactor(c as Component, ref))));
-  return ONE.minus(s.pow(2));
+  return memoGas(gas, `z|${ref}`, () => {
+    const s = sum(Object.entries(gas.fractions).map(([c, x]) => x.times(summationFactor(c as Component, ref))));
+    return ONE.minus(s.pow(2));
+  });
 }
 
+const idealVolumes = new Map<Reference, Dec>();
 /** Ideal molar volume R·T/p, m³/kmol. */
 export function idealMolarVolume(ref: Reference): Dec {
-  const { T, p } = REFERENCES[ref];
-  return R.times(T).div(p).times(1000);
+  let v = idealVolumes.get(ref);
+  if (v === undefined) {
+    const { T, p } = REFERENCES[ref];
+    idealVolumes.set(ref, (v = R.times(T).div(p).times(1000)));
+  }
+  return v;
 }
 
 /** Real-gas molar volume Z·R·T/p, m³/kmol. */
@@ -102,6 +127,9 @@ export function realMolarVolume(gas: GasProperties, ref: Reference): Dec {
 
 /** Component ideal molar gross CV at a combustion reference, kJ/mol, shifted from 15 °C by ΔCp of combustion. */
 export function componentGross(c: Component, ref: Reference): Dec {
+  return memo("gross", c, ref, () => workComponentGross(c, ref));
+}
+function workComponentGross(c: Component, ref: Reference): Dec {
   const d = COMPONENT_DATA[c];
   if (d.gross15.isZero()) return ZERO;
   const { C, H, N, O } = d.atoms;
@@ -116,6 +144,9 @@ export function componentGross(c: Component, ref: Reference): Dec {
 
 /** Component ideal molar net CV: gross − (H/2)·L(t), kJ/mol. */
 export function componentNet(c: Component, ref: Reference): Dec {
+  return memo("net", c, ref, () => workComponentNet(c, ref));
+}
+function workComponentNet(c: Component, ref: Reference): Dec {
   const gross = componentGross(c, ref);
   if (gross.isZero()) return ZERO;
   const L = WATER_L15.plus(WATER_DCP.times(dec("15").minus(REFERENCES[ref].tC)).div(1000));
@@ -137,6 +168,9 @@ export interface CalorificValues {
 
 /** Calorific values with a combustion reference and a metering reference (e.g. 15/15, 25/0). */
 export function calorificValues(gas: GasProperties, metering: Reference, combustion: Reference = metering): CalorificValues {
+  return memoGas(gas, `cv|${metering}|${combustion}`, () => workCalorificValues(gas, metering, combustion));
+}
+function workCalorificValues(gas: GasProperties, metering: Reference, combustion: Reference): CalorificValues {
   const over = (f: (c: Component) => Dec) =>
     sum(Object.entries(gas.fractions).map(([c, x]) => x.times(f(c as Component))));
   const grossMolar = over((c) => componentGross(c, combustion));

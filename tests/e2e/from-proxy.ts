@@ -14,8 +14,16 @@ const proxyAgent = new Agent({ localAddress: PROXY_ADDRESS });
 export const proxyFetch = (url: string, init: RequestInit = {}): Promise<Response> =>
   undiciFetch(url, { ...(init as Record<string, unknown>), dispatcher: proxyAgent }) as unknown as Promise<Response>;
 
-/** A made-up client address from the documentation range (RFC 5737), different each call. */
-export const clientAddress = () => `198.51.100.${1 + (randomBytes(1)[0] % 250)}`;
+/**
+ * A made-up client address from the benchmarking range 198.18.0.0/15 (RFC 2544), a new one each
+ * call: a counter from a random start, so two checks never share an address by chance (with 250
+ * random addresses they did about once in 250 runs, and a sign-in limit then fired early).
+ */
+let nextClient = randomBytes(2).readUInt16BE(0);
+export const clientAddress = () => {
+  const n = nextClient++ % 65_000;
+  return `198.18.${n >> 8}.${1 + (n & 0xff) % 254}`;
+};
 
 /** fetch for a request carrying forwarding headers: through the proxy when it has any. */
 export const fetchFor = (headers: Record<string, string>) => (Object.keys(headers).some((h) => h.startsWith("x-forwarded-")) ? proxyFetch : fetch);
