@@ -13,8 +13,17 @@ export const BALANCE_NAMES: readonly BalanceName[] = ["carbon", "nitrogen", "hyd
 export type Side = "in" | "out";
 export type BalanceTerms = Partial<Record<BalanceName, { side: Side; perUnit: Dec }>>;
 
+const termsOfFlow = new WeakMap<StreamFlow, BalanceTerms>();
+
 /** kmol of C / N2 / H2-equivalents per unit of the stream's quantity, and which side it counts on. */
 export function balanceTerms(flow: StreamFlow): BalanceTerms {
+  // A flow is never changed once built; its terms are asked for by every balance and the reconciliation.
+  let t = termsOfFlow.get(flow);
+  if (t === undefined) termsOfFlow.set(flow, (t = workBalanceTerms(flow)));
+  return t;
+}
+
+function workBalanceTerms(flow: StreamFlow): BalanceTerms {
   const { stream: s, gas, kmolPerUnit: k } = flow;
   if (!gas || !k) return {};
   const C = k.times(gas.atoms.C);

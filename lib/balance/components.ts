@@ -76,7 +76,7 @@ export const CP_PRODUCTS = {
 export const WATER_L15 = dec("44.41");
 export const WATER_DCP = dec("41.75");
 
-export function molarMassOf(c: Component): Dec {
+function workMolarMass(c: Component): Dec {
   const { atoms } = COMPONENT_DATA[c];
   const w = ATOMIC_WEIGHT;
   return w.C.times(atoms.C)
@@ -87,10 +87,24 @@ export function molarMassOf(c: Component): Dec {
     .plus(w.He.times(atoms.He));
 }
 
+// Per-component constants, worked out once (they depend on nothing but the tables above).
+const MOLAR_MASS = new Map<Component, Dec>();
+const H2_EQUIVALENTS = new Map<Component, Dec>();
+
+export function molarMassOf(c: Component): Dec {
+  let m = MOLAR_MASS.get(c);
+  if (m === undefined) MOLAR_MASS.set(c, (m = workMolarMass(c)));
+  return m;
+}
+
 /** Hydrogen equivalents per mole: 2C + H/2 − O (CcHh: 2c + h/2; H2 1; CO 1; CO2 0; O2 −2). */
 export function h2EquivalentsOf(c: Component): Dec {
-  const { C, H, O } = COMPONENT_DATA[c].atoms;
-  return new Dec(2 * C).plus(new Dec(H).div(2)).minus(O);
+  let h = H2_EQUIVALENTS.get(c);
+  if (h === undefined) {
+    const { C, H, O } = COMPONENT_DATA[c].atoms;
+    H2_EQUIVALENTS.set(c, (h = new Dec(2 * C).plus(new Dec(H).div(2)).minus(O)));
+  }
+  return h;
 }
 
 export const DRY_AIR_PCT: Partial<Record<Component, string>> = {

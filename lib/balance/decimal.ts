@@ -37,3 +37,7 @@ export function num(x: Dec | null | undefined): string | null {
   if (x.abs().lt("1e-25")) return "0";
   return x.toSignificantDigits(15).toFixed();
 }
+
+
+// One fast square root for both engine halves (lib/emissions/decimal.ts).
+export { sqrtOf } from "../emissions/decimal";

@@ -57,12 +57,10 @@ export function gasProperties(pct: Composition): GasProperties {
   const fractions: Composition = {};
   for (const c of entries) fractions[c] = pct[c]!.div(sumPct);
   const over = (f: (c: Component) => Dec) => sum(entries.map((c) => fractions[c]!.times(f(c))));
-  const atoms = {
-    C: over((c) => new Dec(COMPONENT_DATA[c].atoms.C)),
-    H: over((c) => new Dec(COMPONENT_DATA[c].atoms.H)),
-    N: over((c) => new Dec(COMPONENT_DATA[c].atoms.N)),
-    O: over((c) => new Dec(COMPONENT_DATA[c].atoms.O)),
-  };
+  // Atom counts are small integers; a component without the atom adds nothing, so it is skipped.
+  const count = (atom: "C" | "H" | "N" | "O") =>
+    sum(entries.filter((c) => COMPONENT_DATA[c].atoms[atom] !== 0).map((c) => fractions[c]!.times(COMPONENT_DATA[c].atoms[atom])));
+  const atoms = { C: count("C"), H: count("H"), N: count("N"), O: count("O") };
   const molarMass = over(molarMassOf);
   return {
     fractions,

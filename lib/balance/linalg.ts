@@ -17,8 +17,9 @@ export function multiply(a: Matrix, b: Matrix, bCols = b[0]?.length ?? 0): Matri
   );
 }
 
-export const matVec = (a: Matrix, v: Vector): Vector => a.map((row) => row.reduce((s, x, k) => s.plus(x.times(v[k])), ZERO));
-export const dot = (u: Vector, v: Vector): Dec => u.reduce((s, x, k) => s.plus(x.times(v[k])), ZERO);
+// Balance matrices are mostly zeros (a stream sits in one to three balances): zero terms are skipped.
+export const matVec = (a: Matrix, v: Vector): Vector => a.map((row) => dot(row, v));
+export const dot = (u: Vector, v: Vector): Dec => u.reduce((s, x, k) => (x.isZero() || v[k].isZero() ? s : s.plus(x.times(v[k]))), ZERO);
 
 /** Largest absolute entry, for scale-aware zero tests. */
 export const maxAbs = (m: Matrix): Dec => m.flat().reduce((s, x) => (x.abs().gt(s) ? x.abs() : s), ZERO);
@@ -47,7 +48,8 @@ export function rowReduce(m: Matrix, cols = m[0]?.length ?? 0): Echelon {
     for (let i = 0; i < a.length; i++) {
       if (i === r || a[i][c].isZero()) continue;
       const f = a[i][c];
-      a[i] = a[i].map((x, j) => x.minus(f.times(a[r][j])));
+      const pivotRow = a[r];
+      a[i] = a[i].map((x, j) => (pivotRow[j].isZero() ? x : x.minus(f.times(pivotRow[j]))));
     }
     pivots.push(c);
     r++;

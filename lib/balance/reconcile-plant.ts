@@ -59,10 +59,11 @@ export function reconcilePlant(flows: StreamFlow[], confidence = dec("0.95")): P
   const unmeasured = constraints.includes("carbon") && has("fuel-gas") && !has("stack-co2")
     ? [{ id: "flue-gas-carbon", balance: "carbon" as BalanceName }] : [];
   const B = constraints.map((b) => unmeasured.map((u) => (u.balance === b ? dec(1) : ZERO)));
+  const sigma = vars.map((i) => sigmaOf(flows[i]));
   const sol = reconcile({
     A, B, c: constraints.map(() => ZERO),
     measured: vars.map((i) => flows[i].stream.quantity),
-    sigma: vars.map((i) => sigmaOf(flows[i])),
+    sigma,
     confidence,
   });
   const streams = vars.map((i, k): StreamReconciliation => {
@@ -73,7 +74,7 @@ export function reconcilePlant(flows: StreamFlow[], confidence = dec("0.95")): P
       reconciled: sol.reconciled[k],
       adjustment: sol.adjustment[k],
       adjustment_pct: q.isZero() ? null : sol.adjustment[k].div(q).times(HUNDRED),
-      sigma: sigmaOf(flows[i]),
+      sigma: sigma[k],
       test_statistic: sol.testStatistic[k],
       suspect: sol.suspect[k],
       redundancy: sol.redundancy[k],
@@ -107,9 +108,10 @@ export function reconciliationFlags(streams: StreamReconciliation[], passed: boo
   const flags: Flag[] = [];
   if (!passed && crit)
     flags.push({ code: "reconciliation-global-test-failed", severity: "warning", message: `global test: χ² = ${chi2.toFixed(2)} exceeds ${crit.toFixed(2)} (95 %): the balances and the stated meter uncertainties disagree` });
-  const suspects = streams.filter((s) => s.suspect).sort((a, b) => b.test_statistic!.cmp(a.test_statistic!));
+  const suspects = streams.filter((s) => s.suspect);
   if (suspects.length) {
-    const top = suspects[0].test_statistic!;
+    const top = suspects.reduce((t, s) => (s.test_statistic!.gt(t) ? s.test_statistic! : t), suspects[0].test_statistic!);
+    // Tied meters are named in the month's own stream order, not in the order of rounding dust.
     const tied = suspects.filter((s) => s.test_statistic!.minus(top).abs().lte(top.times("1e-20")));
     const pct = (s: StreamReconciliation) => `${s.id} (adjusted ${s.adjustment_pct?.toFixed(2) ?? "?"} %)`;
     const why = tied.length > 1 ? "; these meters sit in the same balances only and cannot be told apart" : "";

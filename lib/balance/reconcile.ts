@@ -6,7 +6,7 @@
 //   adjustment a = −Σ·Gᵀ·V⁻¹·r,  x̂ = m + a,  χ² = rᵀ·V⁻¹·r with rank(G) degrees of freedom,
 //   Cov(a) = Σ·Gᵀ·V⁻¹·G·Σ; measurement test zᵢ = |aᵢ| / √Cov(a)ᵢᵢ against the two-sided normal value.
 // A measurement whose column of G is zero cannot be checked (non-redundant): it keeps its value.
-import { Dec, ZERO, dec } from "./decimal";
+import { Dec, ZERO, dec, sqrtOf } from "./decimal";
 import {
   type Matrix, type Vector, RELATIVE_TOLERANCE, dot, independentRows, inverse, leftNullSpace, matVec, maxAbs, multiply, rank, transpose,
 } from "./linalg";
@@ -44,25 +44,33 @@ export function reconcile(p: ReconcileProblem): ReconcileSolution {
   const adj = p.sigma.map((s, i) => (s.gt(0) ? i : -1)).filter((i) => i >= 0);
   // Exact measurements join the constant term.
   const c1 = p.c.map((ci, r) => p.A[r].reduce((s, a, j) => (p.sigma[j].gt(0) ? s : s.plus(a.times(p.measured[j]))), ci));
-  const P = leftNullSpace(p.B, rows, nu);
   const Aadj = p.A.map((row) => adj.map((j) => row[j]));
-  let G = multiply(P, Aadj, adj.length);
-  let h = matVec(P, c1);
-  // Keep independent rows only, so V is nonsingular (dependent balances add no information).
-  const keep = G.length && adj.length ? independentRows(G, adj.length) : [];
-  G = keep.map((i) => G[i]);
-  h = keep.map((i) => h[i]);
-  const sig2 = adj.map((j) => p.sigma[j].pow(2));
+  // With no unmeasured flow the projection is the identity: G is A itself.
+  const P = nu === 0 ? null : leftNullSpace(p.B, rows, nu);
+  let G = P ? multiply(P, Aadj, adj.length) : Aadj;
+  let h = P ? matVec(P, c1) : c1;
+  const sig2 = adj.map((j) => p.sigma[j].times(p.sigma[j]));
+  // V = G·Σ·Gᵀ needs independent rows of G to be invertible (dependent balances add no
+  // information). The usual case has them all, so V is tried first and the rows are sorted out
+  // only when it turns out singular; either way the same rows are kept.
+  let Vinv = G.length && adj.length ? tryInverse(covariance(G, sig2)) : null;
+  if (!Vinv && G.length && adj.length) {
+    const keep = independentRows(G, adj.length);
+    G = keep.map((i) => G[i]);
+    h = keep.map((i) => h[i]);
+    Vinv = G.length ? inverse(covariance(G, sig2)) : null;
+  } else if (!Vinv) {
+    G = [];
+    h = [];
+  }
   const m = adj.map((j) => p.measured[j]);
   const dof = G.length;
   const adjustment: Vector = p.measured.map(() => ZERO);
   const testStatistic: (Dec | null)[] = p.measured.map(() => null);
   const redundancy: Redundancy[] = p.sigma.map((s) => (s.gt(0) ? "non-redundant" : "exact"));
   let chi2 = ZERO;
-  if (dof > 0) {
+  if (dof > 0 && Vinv) {
     const r = G.map((row, i) => dot(row, m).plus(h[i]));
-    const GS = G.map((row) => row.map((g, k) => g.times(sig2[k])));
-    const Vinv = inverse(multiply(GS, transpose(G, adj.length), dof));
     const w = matVec(Vinv, r);
     chi2 = dot(r, w);
     const colTol = maxAbs(G).times(RELATIVE_TOLERANCE);
@@ -71,8 +79,8 @@ export function reconcile(p: ReconcileProblem): ReconcileSolution {
       adjustment[j] = sig2[k].times(dot(gk, w)).neg();
       if (gk.every((g) => g.abs().lte(colTol))) return;
       redundancy[j] = "redundant";
-      const cov = sig2[k].pow(2).times(dot(gk, matVec(Vinv, gk)));
-      testStatistic[j] = adjustment[j].abs().div(cov.sqrt());
+      const cov = sig2[k].times(sig2[k]).times(dot(gk, matVec(Vinv!, gk)));
+      testStatistic[j] = adjustment[j].abs().div(sqrtOf(cov));
     });
   }
   const reconciled = p.measured.map((x, j) => x.plus(adjustment[j]));
@@ -91,6 +99,34 @@ export function reconcile(p: ReconcileProblem): ReconcileSolution {
     zCritical,
     passed: chi2Critical === null || chi2.lte(chi2Critical),
   };
+}
+
+/** V = G·Σ·Gᵀ for diagonal Σ (σ² in sig2), built from its upper triangle: it is symmetric. */
+function covariance(G: Matrix, sig2: Vector): Matrix {
+  const n = G.length;
+  const V: Matrix = Array.from({ length: n }, () => new Array<Dec>(n));
+  for (let i = 0; i < n; i++) {
+    for (let j = i; j < n; j++) {
+      let v = ZERO;
+      for (let k = 0; k < sig2.length; k++) {
+        const a = G[i][k];
+        const b = G[j][k];
+        if (!a.isZero() && !b.isZero()) v = v.plus(a.times(sig2[k]).times(b));
+      }
+      V[i][j] = v;
+      V[j][i] = v;
+    }
+  }
+  return V;
+}
+
+function tryInverse(V: Matrix): Matrix | null {
+  try {
+    return inverse(V);
+  } catch (e) {
+    if (e instanceof Error && e.message === "singular matrix") return null;
+    throw e;
+  }
 }
 
 /** u from B·u = −(A·x̂ + c) by least squares; all null when B lacks full column rank (not observable). */

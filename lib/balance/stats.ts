@@ -53,4 +53,10 @@ export function chiSquareQuantile(p: Dec, k: number): Dec {
 }
 
 /** Two-sided standard normal critical value for confidence c (e.g. 0.95 → 1.959964). */
-export const normalTwoSided = (c: Dec): Dec => chiSquareQuantile(c, 1).sqrt();
+const normalCache = new Map<string, Dec>();
+export function normalTwoSided(c: Dec): Dec {
+  const key = c.toString();
+  let z = normalCache.get(key);
+  if (z === undefined) normalCache.set(key, (z = chiSquareQuantile(c, 1).sqrt()));
+  return z;
+}

@@ -1,4 +1,4 @@
-import { K95, ZERO, dec, type Decimal } from "./decimal";
+import { K95, ZERO, dec, sqrtOf, type Decimal } from "./decimal";
 import type { FactorSet } from "./factor-set-schema";
 import type { UncertaintyTerm } from "./model";
 import type { EmissionsInput, StreamKind } from "./types";
@@ -53,12 +53,12 @@ export function propagate(terms: UncertaintyTerm[], k: Decimal = K95): Uncertain
 }
 
 export function rss(values: Decimal[]): Decimal {
-  return values.reduce((a, v) => a.plus(v.pow(2)), ZERO).sqrt();
+  return sqrtOf(values.reduce((a, v) => a.plus(v.times(v)), ZERO));
 }
 
 export function summarise(value: Decimal, meterU: Decimal, factorU: Decimal, meterComponents: UncertaintyComponent[],
   factorComponents: UncertaintyComponent[], missing: string[], k: Decimal = K95): UncertaintyFigures {
-  const u = meterU.pow(2).plus(factorU.pow(2)).sqrt();
+  const u = sqrtOf(meterU.times(meterU).plus(factorU.times(factorU)));
   const u95 = u.times(k);
   return {
     value_t: value, u_std_t: u, u95_t: u95, u95_pct: value.isZero() ? null : u95.div(value.abs()).times(100),

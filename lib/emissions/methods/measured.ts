@@ -1,4 +1,4 @@
-import { K95, ZERO, dec, sum, type Decimal } from "../decimal";
+import { K95, ZERO, dec, sqrtOf, sum, type Decimal } from "../decimal";
 import { carbonInputs, co2MassOf, relStd, stoichiometricFactor, streamsOf } from "../activity";
 import type { FactorSet } from "../factor-set-schema";
 import { pushOnce, type BalanceCheck, type MethodOutcome, type StreamEmission, type UncertaintyTerm } from "../model";
@@ -72,7 +72,7 @@ function checkAgainstBalance(input: EmissionsInput, set: FactorSet, measuredT: D
   balanceTerms.push(...exportTerms.map((t) => ({ ...t, value_t: t.value_t.neg() })));
   const balanceT = sum(balanceTerms.map((t) => t.value_t));
   const variance = meterVariance(measuredTerms, flags).plus(meterVariance(balanceTerms, flags));
-  const u95 = K95.times(variance.sqrt());
+  const u95 = K95.times(sqrtOf(variance));
   const difference = measuredT.minus(balanceT);
   const within = difference.abs().lte(u95);
   if (!within) {
