@@ -19,6 +19,13 @@ const FIELD_WORDS: Record<string, string> = {
   components: "components",
   sampledOn: "sampling date",
   laboratory: "laboratory",
+  carbonUncertaintyPct: "carbon content uncertainty",
+  cvUncertaintyPct: "calorific value uncertainty",
+  carbon_uncertainty_pct: "carbon content uncertainty",
+  cv_uncertainty_pct: "calorific value uncertainty",
+  systematic_pct: "repeating share of the meter's uncertainty",
+  calibrated_on: "calibration date",
+  metered: "metered",
   source: "source",
   stream: "stream",
 };

@@ -6,7 +6,7 @@
 import { num } from "@/lib/balance/decimal";
 import { toResultDocument } from "@/lib/balance/result";
 import { uncertaintyJson } from "@/lib/balance/result-emissions";
-import type { YearResult } from "@/lib/emissions/year";
+import { YEAR_CORRELATION, type YearResult } from "@/lib/emissions/year";
 import { endedRuns, type MonthRun, type YearBenchmark } from "@/lib/ledger/year";
 import { hasEnded } from "@/lib/period";
 import type { InstallationIdentity } from "@/lib/validations/installation";
@@ -137,8 +137,10 @@ export function buildAnnualModel(input: AnnualModelInput): AnnualStatementModel 
     emissionsByGas: gasRows(ended),
     intensities: intensityRowsOfYear(y, input.benchmarks, input.theoreticalMin),
     uncertainty: [
-      { ...uncertaintyRow("Gross CO2, year", uncertaintyJson(y.uncertainty.co2)), note: "meter errors independent month to month; factor errors fully correlated across months" },
-      { ...uncertaintyRow("Net CO2, year", uncertaintyJson(y.uncertainty.net_co2)), note: "as above, with the meters of deducted transfers" },
+      uncertaintyRow("Gross CO2, year", uncertaintyJson(y.uncertainty.co2)),
+      uncertaintyRow("Net CO2, year", uncertaintyJson(y.uncertainty.net_co2)),
+      uncertaintyRow("Gross CO2e, year", uncertaintyJson(y.uncertainty.co2e), undefined, "t CO2e"),
+      { figure: "How the months combine", value: { value: "", unit: "" }, expanded: "", note: YEAR_CORRELATION },
     ],
     flags: flagRows([...y.flags, ...monthFlags], null),
     revisions: revisionRows(input.revisions),

@@ -3,6 +3,7 @@
  * review screen: method and sources, intensities against benchmarks, uncertainty, flags.
  * Input is the engine's result document (decimal strings); output is display strings with units.
  */
+import { Decimal } from "decimal.js";
 import type { ResultDocument } from "@/lib/balance/result";
 import { DASH, compare, exact, fixed, percentOver, times, utcStamp } from "./format";
 import type { FlagRow, IntensityRow, Mark, MethodSection, Provenance, RevisionRow, UncertaintyRow, UnconfirmedRow } from "./model";
@@ -148,15 +149,29 @@ export function intensityRows(doc: ResultDocument, opts: { usUnits?: boolean } =
 
 type UncertaintyJson = ResultDocument["uncertainty"]["co2"];
 
-export function uncertaintyRow(figure: string, u: UncertaintyJson, streamName: (id: string) => string = (id) => id): UncertaintyRow {
+/**
+ * One figure's uncertainty with its parts at 95 % (the parts add in quadrature to the total).
+ * Documents frozen before the analysis part and the meter split existed print what they carry.
+ */
+export function uncertaintyRow(figure: string, u: UncertaintyJson, streamName: (id: string) => string = (id) => id, unit = "t CO2"): UncertaintyRow {
+  const k = new Decimal(u.coverage_factor ?? "1.96");
+  const at95 = (std: string | null | undefined) => (std === null || std === undefined ? null : fixed(new Decimal(std).times(k).toString(), 1));
+  const p = u as Partial<UncertaintyJson>;
   const meters = u.meter_components.map((c) => streamName(c.key)).join(", ") || "none";
   const factors = u.factor_components.map((c) => c.key).join(", ");
+  const analyses = (p.analysis_components ?? []).map((c) => c.key).join(", ");
   const missing = u.meters_without_uncertainty.length ? `; no stated uncertainty: ${u.meters_without_uncertainty.map(streamName).join(", ")}` : "";
+  const split = p.meter_systematic_u_std_t !== undefined ? ` (repeating ± ${at95(p.meter_systematic_u_std_t)} t, random ± ${at95(p.meter_random_u_std_t)} t)` : "";
+  const parts = [
+    `meters ± ${at95(u.meter_u_std_t)} t${split}: ${meters}`,
+    ...(p.analysis_u_std_t !== undefined ? [`gas analyses ± ${at95(p.analysis_u_std_t)} t${analyses ? `: ${analyses}` : ""}`] : []),
+    `factors ± ${at95(u.factor_u_std_t)} t${factors ? `: ${factors}` : ""}`,
+  ];
   return {
     figure,
-    value: { value: fixed(u.value_t, 1), unit: "t CO2" },
+    value: { value: fixed(u.value_t, 1), unit },
     expanded: `± ${fixed(u.u95_pct, 2)} % (± ${fixed(u.u95_t, 1)} t)`,
-    note: `${u.confidence_pct} % confidence, k = ${u.coverage_factor}; meters: ${meters}${factors ? `; factors: ${factors}` : ""}${missing}`,
+    note: `${u.confidence_pct} % confidence, k = ${u.coverage_factor}; parts at 95 %, adding in quadrature: ${parts.join("; ")}${missing}`,
   };
 }
 

@@ -217,7 +217,9 @@ export function buildMonthlyModel(input: MonthlyModelInput): MonthlyStatementMod
       co2e: { value: fixed(row.co2e_t, 1), unit: "t CO2e" },
     };
   });
-  const u = doc.uncertainty.co2;
+  // Result documents frozen before CO2e carried its own uncertainty have only the CO2 figure.
+  const ue = (doc.uncertainty as Partial<ResultDocument["uncertainty"]>).co2e;
+  const u = ue ?? doc.uncertainty.co2;
   const nonCo2Share = e.co2e_t !== null && e.gross_co2_t !== null ? ratioPct(minus(e.co2e_t, e.gross_co2_t), e.co2e_t) : null;
   const usUnits = input.site.meteringReference === "60F";
 
@@ -242,7 +244,9 @@ export function buildMonthlyModel(input: MonthlyModelInput): MonthlyStatementMod
         net: { value: fixed(e.net_co2e_t, 1), unit: "t CO2e" },
       },
       uncertainty: `± ${fixed(u.u95_pct, 2)} % (± ${fixed(u.u95_t, 1)} t)`,
-      uncertaintyNote: `Expanded uncertainty of gross CO2 (coverage factor k = ${u.coverage_factor}); CH4 and N2O, ${fixed(nonCo2Share, 2)} % of the CO2e, are not in it.`,
+      uncertaintyNote: ue
+        ? `Expanded uncertainty of gross CO2e (coverage factor k = ${u.coverage_factor}): meters, gas analyses and factors, CH4 and N2O (${fixed(nonCo2Share, 2)} % of the CO2e) with their factors' ranges.`
+        : `Expanded uncertainty of gross CO2 (coverage factor k = ${u.coverage_factor}); CH4 and N2O, ${fixed(nonCo2Share, 2)} % of the CO2e, are not in it.`,
       gases,
       ammonia: { value: fixed(doc.feed.ammonia_t, 1), unit: "t NH3" },
       closures: balances.map((b) => ({ element: b.element, closure: b.closure, tolerance: b.tolerance, mark: b.mark, status: b.status })),
@@ -274,7 +278,11 @@ export function buildMonthlyModel(input: MonthlyModelInput): MonthlyStatementMod
     },
     transfers,
     intensities: intensityRows(doc, { usUnits }),
-    uncertainty: [uncertaintyRow("Gross CO2", doc.uncertainty.co2, streamName), uncertaintyRow("Net CO2", doc.uncertainty.net_co2, streamName)],
+    uncertainty: [
+      uncertaintyRow("Gross CO2", doc.uncertainty.co2, streamName),
+      uncertaintyRow("Net CO2", doc.uncertainty.net_co2, streamName),
+      ...(ue ? [uncertaintyRow("Gross CO2e", ue, streamName, "t CO2e")] : []),
+    ],
     flags,
     revisions: revisionRows(input.revisions),
     cautions: [...STATEMENT_CAUTIONS],

@@ -35,7 +35,10 @@ export function liveCalculation(values: MonthFormValues, ctx: LiveContext): Live
   if (readings.length === 0) return { status: "empty" };
   const analyses = values.analyses.flatMap((a) => {
     const comps = a.components.filter((c) => DECIMAL_TEXT.test(c.value.trim()));
-    return comps.length ? [{ key: a.key, components: Object.fromEntries(comps.map((c) => [c.component, c.value.trim()])), note: null }] : [];
+    const pct = (v: string) => (DECIMAL_TEXT.test(v.trim()) ? v.trim() : null);
+    return comps.length
+      ? [{ key: a.key, components: Object.fromEntries(comps.map((c) => [c.component, c.value.trim()])), carbonUncertaintyPct: pct(a.carbonUncertaintyPct), cvUncertaintyPct: pct(a.cvUncertaintyPct), note: null }]
+      : [];
   });
   try {
     const calc = calculateMonth(

@@ -27,6 +27,9 @@ export function monthEntryProps(bundle: MonthBundle, previous: { period: string;
       destination: s.destination,
       fate: s.fate,
       uncertaintyPct: s.uncertaintyPct,
+      metered: s.metered,
+      systematicPct: s.systematicPct,
+      calibratedOn: s.calibratedOn,
       indirectFactor: s.indirectFactor,
       meterTag: s.meterTag,
       sortOrder: s.sortOrder,
@@ -48,6 +51,8 @@ export function monthEntryProps(bundle: MonthBundle, previous: { period: string;
       components: COMPONENTS.filter((c) => comps[c] !== undefined).map((c) => ({ component: c, value: comps[c] })),
       sampledOn: a?.sampledOn ?? "",
       laboratory: a?.laboratory ?? "",
+      carbonUncertaintyPct: a?.carbonUncertaintyPct ?? "",
+      cvUncertaintyPct: a?.cvUncertaintyPct ?? "",
       note: a?.note ?? "",
       saved: !!a,
     };

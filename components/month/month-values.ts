@@ -25,6 +25,10 @@ export interface StreamInfo {
   destination: string | null;
   fate: string | null;
   uncertaintyPct: string | null;
+  /** False: no meter; the balances solve for the flow and a figure entered here is an estimate. */
+  metered: boolean;
+  systematicPct: string | null;
+  calibratedOn: string | null;
   indirectFactor: string | null;
   meterTag: string | null;
   sortOrder: number;
@@ -49,6 +53,8 @@ export interface AnalysisValue {
   components: ComponentValue[];
   sampledOn: string;
   laboratory: string;
+  carbonUncertaintyPct: string;
+  cvUncertaintyPct: string;
   note: string;
   /** Was saved before: an empty table cannot remove it (the service has no removal). */
   saved: boolean;
@@ -89,6 +95,8 @@ export function toFigures(values: MonthFormValues, expectedVersion: number): { f
       components: Object.fromEntries(filled.map((c) => [c.component, c.value.trim()])),
       ...(a.sampledOn ? { sampledOn: a.sampledOn } : {}),
       ...(a.laboratory.trim() ? { laboratory: a.laboratory.trim() } : {}),
+      ...(a.carbonUncertaintyPct.trim() ? { carbonUncertaintyPct: a.carbonUncertaintyPct.trim() } : {}),
+      ...(a.cvUncertaintyPct.trim() ? { cvUncertaintyPct: a.cvUncertaintyPct.trim() } : {}),
       ...(a.note.trim() ? { note: a.note.trim() } : {}),
     });
   });

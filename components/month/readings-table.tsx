@@ -67,6 +67,7 @@ export function ReadingsTable({ streams }: { streams: StreamInfo[] }) {
                   <span id={`reading-${i}-what`} className="block text-xs text-ink-soft">
                     <span className="num">{s.key}</span> · {STREAM_KIND_LABELS[s.kind as StreamKind] ?? s.kind}
                     {s.meterTag ? <> · <span className="num">{s.meterTag}</span></> : null}
+                    {s.metered === false ? " · no meter: the balances solve it, a figure here is an estimate" : ""}
                     {s.archived ? " · archived stream" : ""}
                   </span>
                 </th>

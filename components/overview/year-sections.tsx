@@ -16,7 +16,7 @@ export function YearTotals({ model, series }: { model: AnnualStatementModel; ser
     ["Gross CO2", model.totals.grossCo2, "t CO2", u ? `${u.expanded}, 95 %` : undefined],
     ["Deducted", model.totals.deducted, "t CO2"],
     ["Net CO2", model.totals.netCo2, "t CO2", model.uncertainty[1]?.expanded],
-    ["CO2e, direct", model.totals.co2e, "t CO2e"],
+    ["CO2e, direct", model.totals.co2e, "t CO2e", model.uncertainty[2]?.expanded],
     ["CO2e intensity", model.totals.intensity, "t CO2e/t NH3"],
   ];
   return (
@@ -34,9 +34,18 @@ export function YearTotals({ model, series }: { model: AnnualStatementModel; ser
     </dl>
       <p className="text-xs text-ink-soft">
         {series.totals.months_included.length} of 12 months counted
-        {series.totals.months_left_out_in_progress.length ? ` (${series.totals.months_left_out_in_progress.join(", ")} in progress, left out: provisional)` : ""}. Uncertainty at 95 %: meter errors taken as independent month to
-        month, factor errors as fully correlated across months.
+        {series.totals.months_left_out_in_progress.length ? ` (${series.totals.months_left_out_in_progress.join(", ")} in progress, left out: provisional)` : ""}. Uncertainty at 95 %: a meter&apos;s calibration error repeats in every month until it is recalibrated, its random part does not; each month&apos;s gas
+        analysis is its own; a factor is the same in every month.
       </p>
+      {model.uncertainty.length ? (
+        <ul className="space-y-0.5 text-xs text-ink-soft">
+          {model.uncertainty.filter((r) => r.expanded).map((r) => (
+            <li key={r.figure}>
+              <span className="font-medium text-ink">{r.figure}</span> {r.expanded}: {r.note}
+            </li>
+          ))}
+        </ul>
+      ) : null}
     </div>
   );
 }

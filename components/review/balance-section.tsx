@@ -25,12 +25,20 @@ function ratioDeviationPct(ratio: string | null): string | null {
   return ratio === null ? null : new Decimal(ratio).minus(3).div(3).times(100).toString();
 }
 
+/** How the meters were tested; a result frozen before the per-meter tests were gated says nothing. */
+function sidakNote(rec: NonNullable<ResultDocument["reconciliation"]>): string {
+  const t = (rec as Partial<typeof rec>).measurement_tests;
+  if (!t?.per_test_confidence) return "";
+  return ` Meters are tested one by one only when it fails, each at ${fixed(new Decimal(t.per_test_confidence).times(100).toString(), 2)} % so the ${t.meters_tested} tests together hold 95 % (Šidák).`;
+}
+
 export function BalanceSection({ doc, model, tolerance, streams }: { doc: ResultDocument; model: MonthlyStatementModel; tolerance: string; streams: StreamName[] }) {
   const b = doc.balances;
   const rows = model.balances;
   const rec = doc.reconciliation;
   const byKey = new Map(streams.map((s) => [s.key, s]));
   const named = namedSuspects(rec?.streams);
+  const unmetered = (rec?.unmeasured ?? []).filter((u) => u.stream);
   return (
     <>
       <Section
@@ -59,7 +67,7 @@ export function BalanceSection({ doc, model, tolerance, streams }: { doc: Result
         title="Reconciliation"
         note={
           rec
-            ? `Weighted least squares adjusts each measured flow within its stated uncertainty so the balances close. Global test: chi-square ${fixed(rec.chi2, 2)} against ${fixed(rec.chi2_critical, 2)} (${rec.dof} degrees of freedom, 95 %).`
+            ? `Weighted least squares adjusts each measured flow within its stated uncertainty so the balances close; a flow no meter measures is solved for, not forced onto the meters. Global test: chi-square ${fixed(rec.chi2, 2)} against ${fixed(rec.chi2_critical, 2)} (${rec.dof} degrees of freedom, 95 %). ${sidakNote(rec)}`
             : "Data reconciliation was not run for this month."
         }
       >
@@ -98,6 +106,25 @@ export function BalanceSection({ doc, model, tolerance, streams }: { doc: Result
               ]}
               rows={rec.streams}
             />
+            {unmetered.length ? (
+              <FigureTable
+                caption="Flows without a meter"
+                columns={[
+                  { title: "Stream", cell: (u) => <span>{byKey.get(u.stream!)?.name ?? u.stream}</span> },
+                  { title: "Figure used", numeric: true, cell: (u) => <QtyCell q={{ value: fixed(u.quantity, 3), unit: byKey.get(u.stream!)?.unit ?? "" }} /> },
+                  {
+                    title: "How",
+                    cell: (u) =>
+                      u.observable ? (
+                        <MarkText mark="info">Solved from the balances</MarkText>
+                      ) : (
+                        <MarkText mark="attention">The balances cannot fix it: the entered estimate is used (none entered: zero)</MarkText>
+                      ),
+                  },
+                ]}
+                rows={unmetered}
+              />
+            ) : null}
           </>
         ) : null}
       </Section>

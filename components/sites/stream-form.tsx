@@ -25,6 +25,7 @@ export function StreamForm({ siteId, streamId, defaults, analysisKeys }: { siteI
   const form = useForm<StreamInput, unknown, StreamValues>({ resolver: zodResolver(streamSchema), defaultValues: defaults });
   const { register, handleSubmit, setError, setValue, getValues, formState, control } = form;
   const kind = useWatch({ control, name: "kind" });
+  const metered = useWatch({ control, name: "metered" });
   const units = useMemo(() => UNITS_BY_KIND[kind] ?? [], [kind]);
   const err = (k: keyof StreamInput) => formState.errors[k]?.message;
 
@@ -40,6 +41,11 @@ export function StreamForm({ siteId, streamId, defaults, analysisKeys }: { siteI
     if (kind !== "co2-export") setValue("destination", "");
     if (!INDIRECT_FACTOR_UNIT[kind]) setValue("indirectFactor", "");
   }, [kind, units, getValues, setValue]);
+  // No meter: no meter facts either (the schema refuses them).
+  useEffect(() => {
+    if (metered) return;
+    for (const k of ["uncertaintyPct", "systematicPct", "meterTag", "calibratedOn", "calibrationIntervalMonths"] as const) setValue(k, "");
+  }, [metered, setValue]);
 
   // The action parses the raw text again with the same schema: the server never trusts the browser's parse.
   const onSubmit = handleSubmit(() =>
@@ -134,9 +140,24 @@ export function StreamForm({ siteId, streamId, defaults, analysisKeys }: { siteI
           </FormField>
         ) : null}
       </div>
-      <div className="grid gap-4 sm:grid-cols-4">
+      <div className="flex items-start gap-2">
+        <input id="stream-unmetered" type="checkbox" className="mt-1 size-4 accent-accent" checked={!metered} onChange={(e) => setValue("metered", !e.target.checked, { shouldDirty: true })} aria-describedby="stream-unmetered-hint" />
+        <div>
+          <label htmlFor="stream-unmetered" className="text-sm font-medium">
+            No meter measures this flow
+          </label>
+          <p id="stream-unmetered-hint" className="text-xs text-ink-soft">
+            The reconciliation solves for it from the other meters instead of moving them; a figure entered in the month is kept only as an estimate where the balances cannot fix it.
+          </p>
+        </div>
+      </div>
+      {metered ? (
+      <div className="grid gap-4 sm:grid-cols-5">
         <FormField id="stream-unc" label="Uncertainty (%, 95 % confidence)" hint="Of the monthly total; used by reconciliation." error={err("uncertaintyPct")}>
           <input id="stream-unc" inputMode="decimal" autoComplete="off" className={`${input} num text-right`} {...register("uncertaintyPct")} {...invalidProps("stream-unc", err("uncertaintyPct"))} />
+        </FormField>
+        <FormField id="stream-sys" label="Repeating share (%)" hint="Of the uncertainty, the part that repeats every month until the meter is recalibrated; empty: all of it." error={err("systematicPct")}>
+          <input id="stream-sys" inputMode="decimal" autoComplete="off" placeholder="100" className={`${input} num text-right`} {...register("systematicPct")} {...invalidProps("stream-sys", err("systematicPct"))} />
         </FormField>
         <FormField id="stream-tag" label="Meter tag" error={err("meterTag")}>
           <input id="stream-tag" autoComplete="off" className={`${input} num`} {...register("meterTag")} {...invalidProps("stream-tag", err("meterTag"))} />
@@ -148,6 +169,7 @@ export function StreamForm({ siteId, streamId, defaults, analysisKeys }: { siteI
           <input id="stream-cal-every" inputMode="numeric" autoComplete="off" className={`${input} num text-right`} {...register("calibrationIntervalMonths")} {...invalidProps("stream-cal-every", err("calibrationIntervalMonths"))} />
         </FormField>
       </div>
+      ) : null}
       <div className="flex items-center gap-3">
         <button type="submit" className={buttonPrimary} disabled={pending}>
           {pending ? "Saving…" : streamId ? "Save stream" : "Add stream"}

@@ -36,6 +36,8 @@ export async function listStreamsOfSite(db: Db | Tx, siteId: string) {
       destination: streams.destination,
       fate: streams.fate,
       uncertaintyPct: streams.uncertaintyPct,
+      metered: streams.metered,
+      systematicPct: streams.systematicPct,
       indirectFactor: streams.indirectFactor,
       meterTag: streams.meterTag,
       calibratedOn: streams.calibratedOn,

@@ -53,6 +53,8 @@ export function streamSnapshot(s: StreamRecord) {
     destination: s.destination,
     fate: s.fate,
     uncertaintyPct: s.uncertaintyPct,
+    metered: s.metered,
+    systematicPct: s.systematicPct,
     indirectFactor: s.indirectFactor,
     meterTag: s.meterTag,
     calibratedOn: s.calibratedOn,

@@ -72,6 +72,9 @@ export const gasAnalyses = pgTable(
     components: jsonb("components").$type<Record<string, string>>().notNull(),
     sampledOn: date("sampled_on"),
     laboratory: text("laboratory"),
+    /** Expanded (95 %) relative uncertainty of the carbon content and of the calorific value, %; null: the set's default. */
+    carbonUncertaintyPct: numeric("carbon_uncertainty_pct"),
+    cvUncertaintyPct: numeric("cv_uncertainty_pct"),
     note: text("note"),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },

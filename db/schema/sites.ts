@@ -1,4 +1,4 @@
-import { date, index, integer, jsonb, numeric, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { boolean, date, index, integer, jsonb, numeric, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import type { InstallationIdentity } from "@/lib/validations/installation";
 import { meteringReferenceEnum, streamKindEnum } from "./enums";
 import { organisations } from "./organisations";
@@ -45,6 +45,10 @@ export const streams = pgTable(
     destination: text("destination"),
     fate: text("fate"),
     uncertaintyPct: numeric("uncertainty_pct"),
+    /** False: no meter measures this flow; the reconciliation solves for it (an entered figure is an estimate). */
+    metered: boolean("metered").notNull().default(true),
+    /** Share of the meter's uncertainty that repeats every month until recalibration, %; null: 100 (all). */
+    systematicPct: numeric("systematic_pct"),
     /** Indirect CO2 factor of an import or export: t CO2 per MWh (electricity) or per GJ (steam). */
     indirectFactor: numeric("indirect_factor"),
     meterTag: text("meter_tag"),

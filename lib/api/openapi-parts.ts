@@ -63,7 +63,7 @@ export const schemas: Json = {
     type: "object",
     properties: {
       key: { type: "string" }, name: { type: "string" }, kind: { type: "string" }, unit: { type: "string" }, analysisKey: { type: ["string", "null"] },
-      destination: { type: ["string", "null"] }, fate: { type: ["string", "null"] }, uncertaintyPct: { type: ["string", "null"] }, indirectFactor: { type: ["string", "null"] },
+      destination: { type: ["string", "null"] }, fate: { type: ["string", "null"] }, uncertaintyPct: { type: ["string", "null"] }, metered: { type: "boolean" }, systematicPct: { type: ["string", "null"] }, indirectFactor: { type: ["string", "null"] },
       meterTag: { type: ["string", "null"] }, calibratedOn: { type: ["string", "null"], format: "date" }, archivedAt: { type: ["string", "null"], format: "date-time" },
     },
   },
@@ -79,6 +79,8 @@ export const schemas: Json = {
     properties: {
       components: { type: "object", additionalProperties: decimal, description: "component → mol % (dry); must sum to 100 within 0.5", examples: [{ CH4: "93.10", C2H6: "3.20", N2: "1.80", CO2: "1.90" }] },
       sampledOn: { type: "string", format: "date" }, laboratory: { type: "string" }, note: { type: "string" },
+      carbonUncertaintyPct: { ...decimal, description: "expanded (95 %) relative uncertainty of the carbon content, %; absent: the factor set's default" },
+      cvUncertaintyPct: { ...decimal, description: "expanded (95 %) relative uncertainty of the calorific value, %; absent: the factor set's default" },
     },
   },
   MonthFigures: {

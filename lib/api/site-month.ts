@@ -34,7 +34,7 @@ export async function requireStartedMonth(caller: ApiCaller, siteId: string, mon
 }
 
 export function analysisView(a: MonthBundle["analyses"][number]) {
-  return { key: a.key, components: a.components, sampledOn: a.sampledOn, laboratory: a.laboratory, note: a.note };
+  return { key: a.key, components: a.components, sampledOn: a.sampledOn, laboratory: a.laboratory, carbonUncertaintyPct: a.carbonUncertaintyPct, cvUncertaintyPct: a.cvUncertaintyPct, note: a.note };
 }
 
 function timingView(period: string) {

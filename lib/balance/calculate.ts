@@ -80,7 +80,7 @@ export function analysisFigures(id: string, gas: GasProperties): AnalysisResult 
 
 export function calculate(doc: PlantMonth, options: CalculateOptions = {}): CalculationResult {
   const { gases, flags: analysisFlags } = analysesOf(doc);
-  const flows = doc.streams.map((s, i) => {
+  const measuredFlows = doc.streams.map((s, i) => {
     try {
       return streamFlow(s, gases);
     } catch (e) {
@@ -88,9 +88,14 @@ export function calculate(doc: PlantMonth, options: CalculateOptions = {}): Calc
       throw e;
     }
   });
+  const reconciliation = options.reconcile === false ? null : reconcileOrExplain(measuredFlows, options.confidence ?? dec("0.95"));
+  // A stream that is not metered takes the quantity the balances fix for it, everywhere after.
+  const flows = measuredFlows.map((f, i) => {
+    const solved = reconciliation?.unmeasured.find((u) => u.stream === f.stream.id)?.quantity;
+    return solved ? streamFlow({ ...doc.streams[i], quantity: solved }, gases) : f;
+  });
   const balances = elementBalances(flows);
   const feed = feedFigures(flows);
-  const reconciliation = options.reconcile === false ? null : reconcileOrExplain(flows, options.confidence ?? dec("0.95"));
   const analyses = Object.fromEntries(Object.entries(gases).map(([id, g]) => [id, analysisFigures(id, g)]));
   const partial = {
     site: doc.site,

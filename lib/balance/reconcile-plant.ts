@@ -3,10 +3,13 @@
 // Choice: a stream without uncertainty_pct is EXACT (σ = 0) and is never moved — a missing
 // uncertainty is not licence to shift a meter by an arbitrary amount. Fuel burnt with no
 // stack-co2 monitor leaves flue-gas carbon unmeasured; it enters as an unmeasured flow and is
-// eliminated by projection, which makes the carbon balance non-redundant in that case.
+// eliminated by projection, which makes the carbon balance non-redundant in that case. A stream
+// declared not metered ("metered": false) is an unmeasured flow too: the adjustment solves for
+// it instead of moving the metered flows to absorb it.
 import { BALANCE_NAMES, type BalanceName, balanceTerms, closure, elementBalances } from "./balances";
 import { Dec, HUNDRED, ZERO, dec } from "./decimal";
 import { reconcile, type Redundancy } from "./reconcile";
+import { isUnmetered } from "./schema";
 import type { StreamFlow } from "./streams";
 import type { Flag } from "./types";
 
@@ -25,14 +28,31 @@ export interface StreamReconciliation {
   redundancy: Redundancy;
 }
 
+/** A flow the balances must supply: flue-gas carbon with no stack monitor, or a stream declared not metered. */
+export interface UnmeasuredFlow {
+  id: string;
+  /** The stream, when the flow is one of the month's streams. */
+  stream: string | null;
+  /** The one balance it enters (flue-gas carbon); null for a stream, which may enter several. */
+  balance: BalanceName | null;
+  /** Solved amount, kmol (of the balance's element for flue-gas carbon; of the stream's material for a stream); null when the balances do not fix it. */
+  kmol: Dec | null;
+  /** Solved quantity in the stream's unit; null for flue-gas carbon or when not fixed. */
+  quantity: Dec | null;
+  observable: boolean;
+}
+
 export interface PlantReconciliation {
   constraints: BalanceName[];
   streams: StreamReconciliation[];
-  unmeasured: { id: string; balance: BalanceName; kmol: Dec | null }[];
+  unmeasured: UnmeasuredFlow[];
   chi2: Dec;
   dof: number;
   chi2_critical: Dec | null;
+  /** Critical value of each measurement test (Šidák level for `tested` meters); read only when the global test fails. */
   z_critical: Dec;
+  tested: number;
+  per_test_confidence: Dec;
   passed: boolean;
   closures_after: Record<BalanceName, Dec | null>;
   flags: Flag[];
@@ -48,17 +68,20 @@ export function reconcilePlant(flows: StreamFlow[], confidence = dec("0.95")): P
   const constraints = BALANCE_NAMES.filter((b) => measured.closable[b]);
   if (constraints.length === 0) return null;
   const terms = flows.map(balanceTerms);
-  const vars = flows.map((_, i) => i).filter((i) => constraints.some((b) => terms[i][b]));
-  const A = constraints.map((b) =>
-    vars.map((i) => {
-      const t = terms[i][b];
-      return t ? (t.side === "out" ? t.perUnit : t.perUnit.neg()) : ZERO;
-    }),
-  );
+  const inBalances = flows.map((_, i) => i).filter((i) => constraints.some((b) => terms[i][b]));
+  const vars = inBalances.filter((i) => !isUnmetered(flows[i].stream));
+  const unmetered = inBalances.filter((i) => isUnmetered(flows[i].stream));
+  const coefficient = (i: number, b: BalanceName) => {
+    const t = terms[i][b];
+    return t ? (t.side === "out" ? t.perUnit : t.perUnit.neg()) : ZERO;
+  };
+  const A = constraints.map((b) => vars.map((i) => coefficient(i, b)));
   const has = (k: string) => flows.some((f) => f.stream.kind === k);
-  const unmeasured = constraints.includes("carbon") && has("fuel-gas") && !has("stack-co2")
-    ? [{ id: "flue-gas-carbon", balance: "carbon" as BalanceName }] : [];
-  const B = constraints.map((b) => unmeasured.map((u) => (u.balance === b ? dec(1) : ZERO)));
+  const flueGas = constraints.includes("carbon") && has("fuel-gas") && !has("stack-co2");
+  const B = constraints.map((b) => [
+    ...(flueGas ? [b === "carbon" ? dec(1) : ZERO] : []),
+    ...unmetered.map((i) => coefficient(i, b)),
+  ]);
   const sigma = vars.map((i) => sigmaOf(flows[i]));
   const sol = reconcile({
     A, B, c: constraints.map(() => ZERO),
@@ -66,6 +89,15 @@ export function reconcilePlant(flows: StreamFlow[], confidence = dec("0.95")): P
     sigma,
     confidence,
   });
+  const solved = flueGas ? sol.unmeasured.slice(1) : sol.unmeasured;
+  const unmeasured: UnmeasuredFlow[] = [
+    ...(flueGas ? [{ id: "flue-gas-carbon", stream: null, balance: "carbon" as BalanceName, kmol: sol.unmeasured[0], quantity: null, observable: sol.unmeasured[0] !== null }] : []),
+    ...unmetered.map((i, j): UnmeasuredFlow => {
+      const q = solved[j];
+      const k = flows[i].kmolPerUnit;
+      return { id: flows[i].stream.id, stream: flows[i].stream.id, balance: null, quantity: q, kmol: q && k ? q.times(k) : null, observable: q !== null };
+    }),
+  ];
   const streams = vars.map((i, k): StreamReconciliation => {
     const q = flows[i].stream.quantity;
     return {
@@ -80,26 +112,31 @@ export function reconcilePlant(flows: StreamFlow[], confidence = dec("0.95")): P
       redundancy: sol.redundancy[k],
     };
   });
-  const byIndex = new Map(vars.map((i, k) => [i, sol.reconciled[k]]));
-  const after = elementBalances(flows, (f) => byIndex.get(flows.indexOf(f)) ?? f.stream.quantity);
+  const byFlow = new Map<StreamFlow, Dec>(vars.map((i, k) => [flows[i], sol.reconciled[k]]));
+  unmetered.forEach((i, j) => {
+    if (solved[j]) byFlow.set(flows[i], solved[j]!);
+  });
+  const after = elementBalances(flows, (f) => byFlow.get(f) ?? f.stream.quantity);
   const closures_after = Object.fromEntries(
     BALANCE_NAMES.map((b) => {
       if (!constraints.includes(b)) return [b, null];
-      const extra = b === "carbon" && unmeasured.length ? (sol.unmeasured[0] ?? ZERO) : ZERO;
+      const extra = b === "carbon" && flueGas ? (sol.unmeasured[0] ?? ZERO) : ZERO;
       return [b, closure(after[b].in_kmol, after[b].out_kmol.plus(extra))];
     }),
   ) as Record<BalanceName, Dec | null>;
   return {
     constraints,
     streams,
-    unmeasured: unmeasured.map((u, j) => ({ ...u, kmol: sol.unmeasured[j] })),
+    unmeasured,
     chi2: sol.chi2,
     dof: sol.dof,
     chi2_critical: sol.chi2Critical,
     z_critical: sol.zCritical,
+    tested: sol.tested,
+    per_test_confidence: sol.perTestConfidence,
     passed: sol.passed,
     closures_after,
-    flags: reconciliationFlags(streams, sol.passed, sol.chi2, sol.chi2Critical, sol.zCritical),
+    flags: [...reconciliationFlags(streams, sol.passed, sol.chi2, sol.chi2Critical, sol.zCritical), ...unmeteredFlags(unmeasured, flows)],
   };
 }
 
@@ -126,4 +163,16 @@ export function reconciliationFlags(streams: StreamReconciliation[], passed: boo
   if (unchecked.length)
     flags.push({ code: "reconciliation-non-redundant", severity: "info", message: `cannot be checked by the balances (non-redundant): ${unchecked.join(", ")}` });
   return flags;
+}
+
+/** What the balances said about each stream that is not metered. */
+function unmeteredFlags(unmeasured: UnmeasuredFlow[], flows: StreamFlow[]): Flag[] {
+  return unmeasured.filter((u) => u.stream !== null).map((u): Flag => {
+    const s = flows.find((f) => f.stream.id === u.stream)!.stream;
+    return u.quantity
+      ? { code: "unmetered-stream-solved", severity: "info", stream: s.id,
+          message: `${s.id} is not metered: the balances put it at ${u.quantity.toSignificantDigits(6).toFixed()} ${s.unit}, used as its quantity` }
+      : { code: "unmetered-stream-unknown", severity: "warning", stream: s.id,
+          message: `${s.id} is not metered and the balances do not fix it: its estimate ${s.quantity.toFixed()} ${s.unit} is used; meter it or give a better estimate` };
+  });
 }

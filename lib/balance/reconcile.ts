@@ -6,9 +6,14 @@
 //   adjustment a = −Σ·Gᵀ·V⁻¹·r,  x̂ = m + a,  χ² = rᵀ·V⁻¹·r with rank(G) degrees of freedom,
 //   Cov(a) = Σ·Gᵀ·V⁻¹·G·Σ; measurement test zᵢ = |aᵢ| / √Cov(a)ᵢᵢ against the two-sided normal value.
 // A measurement whose column of G is zero cannot be checked (non-redundant): it keeps its value.
+// Testing many meters at once: the measurement tests are read only when the global test fails,
+// and each at the Šidák level c^(1/n) for the n meters tested, so the chance of naming any good
+// meter in a month where all are good stays 1 − c (Šidák 1967; common practice in data
+// reconciliation, no source beyond that). An unmeasured flow is observable when the balances
+// fix it (every null vector of B is zero in its place); the others are reported as unknown.
 import { Dec, ZERO, dec, sqrtOf } from "./decimal";
 import {
-  type Matrix, type Vector, RELATIVE_TOLERANCE, dot, independentRows, inverse, leftNullSpace, matVec, maxAbs, multiply, rank, transpose,
+  type Matrix, type Vector, RELATIVE_TOLERANCE, dot, independentRows, inverse, leftNullSpace, matVec, maxAbs, multiply, rank, rowReduce, transpose,
 } from "./linalg";
 import { chiSquareQuantile, normalTwoSided } from "./stats";
 
@@ -33,7 +38,11 @@ export interface ReconcileSolution {
   chi2: Dec;
   dof: number;
   chi2Critical: Dec | null; // null when dof = 0
+  /** Two-sided critical value of each measurement test: at the Šidák level for the meters tested. */
   zCritical: Dec;
+  /** How many measurements were tested (redundant ones) and the confidence of each test. */
+  tested: number;
+  perTestConfidence: Dec;
   passed: boolean;
 }
 
@@ -84,20 +93,25 @@ export function reconcile(p: ReconcileProblem): ReconcileSolution {
     });
   }
   const reconciled = p.measured.map((x, j) => x.plus(adjustment[j]));
-  const zCritical = normalTwoSided(conf);
+  const tested = testStatistic.filter((z) => z !== null).length;
+  const perTestConfidence = tested > 1 ? conf.pow(new Dec(1).div(tested)) : conf;
+  const zCritical = normalTwoSided(perTestConfidence);
   const chi2Critical = dof > 0 ? chiSquareQuantile(conf, dof) : null;
+  const passed = chi2Critical === null || chi2.lte(chi2Critical);
   return {
     reconciled,
     adjustment,
     unmeasured: estimateUnmeasured(p, reconciled, nu),
     redundancy,
     testStatistic,
-    suspect: testStatistic.map((z) => z !== null && z.gt(zCritical)),
+    suspect: testStatistic.map((z) => !passed && z !== null && z.gt(zCritical)),
     chi2,
     dof,
     chi2Critical,
     zCritical,
-    passed: chi2Critical === null || chi2.lte(chi2Critical),
+    tested,
+    perTestConfidence,
+    passed,
   };
 }
 
@@ -129,11 +143,24 @@ function tryInverse(V: Matrix): Matrix | null {
   }
 }
 
-/** u from B·u = −(A·x̂ + c) by least squares; all null when B lacks full column rank (not observable). */
+/**
+ * u from B·u = −(A·x̂ + c). With B of full column rank, by least squares; otherwise each flow
+ * the balances fix is read from the reduced system and the others are null (not observable).
+ */
 function estimateUnmeasured(p: ReconcileProblem, x: Vector, nu: number): (Dec | null)[] {
   if (nu === 0) return [];
-  if (rank(p.B, nu) < nu) return Array.from({ length: nu }, () => null);
   const rhs = p.A.map((row, i) => dot(row, x).plus(p.c[i]).neg());
-  const Bt = transpose(p.B, nu);
-  return matVec(inverse(multiply(Bt, p.B, nu)), matVec(Bt, rhs));
+  if (rank(p.B, nu) === nu) {
+    const Bt = transpose(p.B, nu);
+    return matVec(inverse(multiply(Bt, p.B, nu)), matVec(Bt, rhs));
+  }
+  // After reconciliation the system is consistent, so its reduced form gives every fixed flow.
+  const { rref, pivots } = rowReduce(p.B.map((row, i) => [...row, rhs[i]]), nu);
+  const free = Array.from({ length: nu }, (_, j) => j).filter((j) => !pivots.includes(j));
+  const tol = maxAbs(p.B).times(RELATIVE_TOLERANCE);
+  const out: (Dec | null)[] = Array.from({ length: nu }, () => null);
+  pivots.forEach((pc, i) => {
+    if (free.every((f) => rref[i][f].abs().lte(tol))) out[pc] = rref[i][nu];
+  });
+  return out;
 }

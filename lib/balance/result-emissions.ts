@@ -5,7 +5,7 @@ import type { UncertaintyFigures } from "../emissions/uncertainty";
 import type { EmissionsResult } from "../emissions/result";
 import { type Dec, num } from "./decimal";
 
-/** The uncertainty of one figure: expanded at 95 %, with its meter (independent) and factor parts. */
+/** The uncertainty of one figure: expanded at 95 %, with its meter (systematic and random), analysis and factor parts. */
 export function uncertaintyJson(u: UncertaintyFigures) {
   return {
     value_t: num(u.value_t),
@@ -15,10 +15,17 @@ export function uncertaintyJson(u: UncertaintyFigures) {
     coverage_factor: num(u.coverage_factor),
     u_std_t: num(u.u_std_t),
     meter_u_std_t: num(u.meter_u_std_t),
+    meter_systematic_u_std_t: num(u.meter_systematic_u_std_t),
+    meter_random_u_std_t: num(u.meter_random_u_std_t),
+    analysis_u_std_t: num(u.analysis_u_std_t),
     factor_u_std_t: num(u.factor_u_std_t),
-    meter_components: u.meter_components.map((c) => ({ key: c.key, u_std_t: num(c.u_std_t) })),
+    meter_components: u.meter_components.map((c) => ({
+      key: c.key, u_std_t: num(c.u_std_t), systematic_u_std_t: num(c.systematic_u_std_t), random_u_std_t: num(c.random_u_std_t), period: c.period,
+    })),
+    analysis_components: u.analysis_components.map((c) => ({ key: c.key, u_std_t: num(c.u_std_t) })),
     factor_components: u.factor_components.map((c) => ({ key: c.key, u_std_t: num(c.u_std_t) })),
     meters_without_uncertainty: u.meters_without_uncertainty,
+    correlation: u.correlation,
   };
 }
 
@@ -68,7 +75,10 @@ export function emissionsDocumentPart(d: EmissionsResult, gjLhvPerT: Dec | null,
       measured_co2_t: num(d.balance_check.measured_co2_t), balance_co2_t: num(d.balance_check.balance_co2_t),
       difference_t: num(d.balance_check.difference_t), u95_t: num(d.balance_check.u95_t), within_uncertainty: d.balance_check.within_uncertainty,
     },
-    uncertainty: { co2: uncertaintyJson(d.uncertainty.co2), net_co2: uncertaintyJson(d.uncertainty.net_co2) },
+    uncertainty: {
+      co2: uncertaintyJson(d.uncertainty.co2), net_co2: uncertaintyJson(d.uncertainty.net_co2),
+      co2e: uncertaintyJson(d.uncertainty.co2e), net_co2e: uncertaintyJson(d.uncertainty.net_co2e),
+    },
     // A tier is an ordinal class (1–4, 0 below the loosest), like `dof`: written as a JSON integer.
     activity_tiers: d.tiers.map((t) => ({ stream: t.stream_id, kind: t.kind, uncertainty_pct: num(t.uncertainty_pct), tier: t.tier })),
     method: {

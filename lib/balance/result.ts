@@ -67,6 +67,8 @@ export function buildEmissionsInput(
       carbon_atoms_per_mol: a.carbon_atoms_per_mol,
       ncv_mj_per_kg: a.ncv_mj_per_kg,
       gcv_mj_per_kg: a.gcv_mj_per_kg,
+      ...(doc.analyses[id]?.carbon_uncertainty_pct !== undefined ? { carbon_uncertainty_pct: doc.analyses[id].carbon_uncertainty_pct } : {}),
+      ...(doc.analyses[id]?.cv_uncertainty_pct !== undefined ? { cv_uncertainty_pct: doc.analyses[id].cv_uncertainty_pct } : {}),
     };
   const min = result.feed.theoretical_min_gj_lhv_per_t_nh3;
   return {
@@ -93,7 +95,7 @@ export function toResultDocument(r: CalculationResult) {
     month: r.month,
     closure_tolerance_pct: num(r.tolerancePct),
     streams: r.streams.map((s) => ({
-      id: s.id, kind: s.kind, unit: s.unit, quantity: num(s.quantity),
+      id: s.id, kind: s.kind, unit: s.unit, quantity: num(s.quantity), ...(s.metered === false ? { metered: false } : {}),
       kmol: num(s.kmol), t: num(s.t), carbon_kmol: num(s.carbon_kmol), carbon_t: num(s.carbon_t),
       gj_lhv: num(s.gj_lhv), gj_hhv: num(s.gj_hhv), mwh: num(s.mwh),
     })),
@@ -124,8 +126,12 @@ export function toResultDocument(r: CalculationResult) {
         adjustment_pct: num(s.adjustment_pct), sigma: num(s.sigma), test_statistic: num(s.test_statistic),
         suspect: s.suspect, redundancy: s.redundancy,
       })),
-      unmeasured: rec.unmeasured.map((u) => ({ id: u.id, balance: u.balance, kmol: num(u.kmol) })),
+      unmeasured: rec.unmeasured.map((u) => ({
+        id: u.id, balance: u.balance, kmol: num(u.kmol),
+        ...(u.stream ? { stream: u.stream, quantity: num(u.quantity) } : {}), observable: u.observable,
+      })),
       chi2: num(rec.chi2), dof: rec.dof, chi2_critical: num(rec.chi2_critical), z_critical: num(rec.z_critical),
+      measurement_tests: { meters_tested: rec.tested, per_test_confidence: num(rec.per_test_confidence), correction: "Šidák", read_only_when_global_test_fails: true },
       passed: rec.passed,
       closures_after_pct: Object.fromEntries(Object.entries(rec.closures_after).map(([k, v]) => [k, num(v)])),
     },

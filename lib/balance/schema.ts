@@ -63,7 +63,15 @@ const componentsSchema = z.strictObject(
 const note = () => z.string().max(LIMITS.noteChars, `is longer than ${LIMITS.noteChars} characters`).optional();
 const name = (min = "must not be empty") => z.string().min(1, min).max(LIMITS.nameChars, `is longer than ${LIMITS.nameChars} characters`);
 
-const analysisSchema = z.strictObject({ components: componentsSchema, note: note() });
+const pctAtMost100 = () => decimal("value").refine((d) => d.lte(HUNDRED), "must be at most 100 (%)").optional();
+const analysisSchema = z.strictObject({
+  components: componentsSchema,
+  /** Expanded (95 %) relative uncertainty of the carbon content the composition gives, %; absent: the set's default. */
+  carbon_uncertainty_pct: pctAtMost100(),
+  /** Expanded (95 %) relative uncertainty of its calorific value, %; absent: the set's default. */
+  cv_uncertainty_pct: pctAtMost100(),
+  note: note(),
+});
 
 const streamSchema = z.strictObject({
   id: name(),
@@ -71,10 +79,24 @@ const streamSchema = z.strictObject({
   analysis: name().optional(),
   fate: enumOf(FATES, "fate").optional(),
   destination: enumOf(DESTINATIONS, "destination").optional(),
-  quantity: decimal("quantity"),
+  // Optional only on a stream declared not metered (checked below): its quantity is then unknown.
+  quantity: decimal("quantity").optional(),
   unit: enumOf(UNITS, "unit"),
+  /**
+   * false: no meter measures this flow. Its quantity, when given, is the team's estimate; the
+   * reconciliation solves for the flow from the balances instead of moving metered flows to
+   * absorb it, and where the balances determine it that value is the stream's quantity.
+   */
+  metered: z.boolean({ error: "must be true or false" }).optional(),
   // Beyond 100 % a meter says nothing, and a huge σ beside small ones makes reconciliation's matrix singular.
   uncertainty_pct: decimal("value").refine((d) => d.lte(HUNDRED), "uncertainty must be at most 100 (%)").optional(),
+  /**
+   * Share of the meter's uncertainty that repeats month after month until the meter is
+   * recalibrated (calibration error), %; the rest is random. Absent: 100 (all systematic).
+   */
+  systematic_pct: pctAtMost100(),
+  /** Date of the meter's last calibration before or in the month: months with different dates are independent periods. */
+  calibrated_on: z.string().regex(/^\d{4}-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, "must be a date YYYY-MM-DD").optional(),
   factor_t_per_MWh: decimal("value").optional(),
   factor_t_per_GJ: decimal("value").optional(),
   meter: name().optional(),
@@ -133,12 +155,26 @@ export const plantMonthSchema = z
       if (s.kind === "co2-export" && s.destination === undefined) at("destination", "a co2-export stream needs a destination (urea, storage, sale or other)");
       if (s.fate !== undefined && s.kind !== "purge-gas") at("fate", "only purge-gas streams have a fate");
       if (s.destination !== undefined && s.kind !== "co2-export") at("destination", "only co2-export streams have a destination");
+      if (s.quantity === undefined && s.metered !== false) at("quantity", "is required (only a stream declared \"metered\": false may leave it out)");
+      if (s.metered === false && s.uncertainty_pct !== undefined) at("uncertainty_pct", "a stream that is not metered has no meter uncertainty; the reconciliation solves for it");
+      if (s.metered === false && s.systematic_pct !== undefined) at("systematic_pct", "a stream that is not metered has no meter uncertainty to split");
       if (!UNITS_BY_KIND[s.kind].includes(s.unit)) at("unit", `unit ${s.unit} is not valid for a ${s.kind} stream (use ${UNITS_BY_KIND[s.kind].join(", ")})`);
     });
   });
 
-export type PlantMonth = z.output<typeof plantMonthSchema>;
-export type PlantMonthStream = PlantMonth["streams"][number];
+type ParsedPlantMonth = z.output<typeof plantMonthSchema>;
+type ParsedStream = ParsedPlantMonth["streams"][number];
+/** A stream as the engine reads it: the quantity always present (0 where a stream that is not metered gave none). */
+export type PlantMonthStream = Omit<ParsedStream, "quantity"> & { quantity: Dec };
+export type PlantMonth = Omit<ParsedPlantMonth, "streams"> & { streams: PlantMonthStream[] };
+
+/** The unknown quantity of a stream that is not metered reads as 0 until the reconciliation solves for it. */
+function withQuantities(doc: ParsedPlantMonth): PlantMonth {
+  return { ...doc, streams: doc.streams.map((s) => ({ ...s, quantity: s.quantity ?? new Dec(0) })) };
+}
+
+/** A stream whose quantity is not a meter's: declared "metered": false. */
+export const isUnmetered = (s: Pick<PlantMonthStream, "metered">): boolean => s.metered === false;
 
 export interface InputIssue {
   path: string; // e.g. streams[2].quantity; "" for the document itself
@@ -159,7 +195,7 @@ export function formatPath(path: readonly PropertyKey[]): string {
 
 export function parsePlantMonth(value: unknown): ParseResult {
   const r = plantMonthSchema.safeParse(value);
-  if (r.success) return { ok: true, doc: r.data };
+  if (r.success) return { ok: true, doc: withQuantities(r.data) };
   return { ok: false, issues: r.error.issues.map((i) => ({ path: formatPath(i.path), reason: i.message })) };
 }
 

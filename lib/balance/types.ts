@@ -23,6 +23,12 @@ export interface StreamFigures {
   unit: string;
   quantity: Decimal;
   uncertainty_pct: Decimal | null;
+  /** Present (false) on a stream no meter measures: its quantity is the one the balances fixed, or the estimate. */
+  metered?: false;
+  /** Share of the meter's uncertainty that repeats every month until recalibration, %; absent: 100. */
+  systematic_pct?: Decimal;
+  /** Last calibration of the meter as of the month (YYYY-MM-DD): a new date starts an independent period. */
+  calibrated_on?: string;
   kmol: Decimal | null;
   t: Decimal | null;
   carbon_kmol: Decimal | null;
@@ -40,6 +46,10 @@ export interface AnalysisFigures {
   carbon_atoms_per_mol: Decimal;
   ncv_mj_per_kg: Decimal;
   gcv_mj_per_kg: Decimal;
+  /** Expanded (95 %) relative uncertainty of the carbon content, %, as entered with the analysis. */
+  carbon_uncertainty_pct?: Decimal;
+  /** Expanded (95 %) relative uncertainty of the calorific value, %, as entered with the analysis. */
+  cv_uncertainty_pct?: Decimal;
 }
 
 export interface EmissionsInput {

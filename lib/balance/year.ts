@@ -1,7 +1,7 @@
 // Annual roll-up of several plant-month files of one site: each month is calculated as the
 // month CLI would, then lib/emissions' rollUpYear adds them with the annual uncertainty model
 // (factor part correlated across months, meter part independent).
-import { rollUpYear, type YearResult } from "../emissions/year";
+import { YEAR_CORRELATION, rollUpYear, type YearResult } from "../emissions/year";
 import type { CalculationResult } from "./calculate";
 import { num } from "./decimal";
 import { uncertaintyJson } from "./result-emissions";
@@ -86,9 +86,11 @@ export function toYearDocument(y: YearRollUp) {
       co2e_incl_indirect_t_per_t_nh3: num(r.intensity.co2e_incl_indirect_t_per_t_nh3),
     },
     uncertainty: {
-      model: "factor part correlated across months (added linearly per factor); meter part independent (added in quadrature); 95 %, k = 1.96",
+      model: `${YEAR_CORRELATION}; 95 %, k = 1.96`,
       co2: uncertaintyJson(r.uncertainty.co2),
       net_co2: uncertaintyJson(r.uncertainty.net_co2),
+      co2e: uncertaintyJson(r.uncertainty.co2e),
+      net_co2e: uncertaintyJson(r.uncertainty.net_co2e),
     },
     flags: y.flags,
   };

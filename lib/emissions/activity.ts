@@ -1,6 +1,7 @@
-import { D, ZERO, dec, parseRatio, type Decimal } from "./decimal";
+import { D, K95, ZERO, dec, parseRatio, type Decimal } from "./decimal";
 import type { ActivityBasis, FactorSet, FuelFactors } from "./factor-set-schema";
 import type { EmissionsInput, Flag, StreamFigures } from "./types";
+import { pushOnce } from "./model";
 
 /** 1 MMBtu = 1.05505585262 GJ (International Table Btu, 1055.05585262 J). */
 export const GJ_PER_MMBTU = new D("1.05505585262");
@@ -76,6 +77,26 @@ export function siteFactorFromAnalysis(
 }
 
 /** Relative standard uncertainty (fraction) from an expanded 95 % percentage. */
+/**
+ * The relative standard uncertainty of one property of the stream's analysis: as entered with the
+ * analysis, else the set's default (flagged once, naming the analyses), else none.
+ */
+export function analysisStd(input: EmissionsInput, set: FactorSet, s: StreamFigures, property: "carbon" | "cv", flags: Flag[]):
+  { analysis_key: string; analysis_rel_std: Decimal } | Record<string, never> {
+  if (!s.analysis) return {};
+  const a = input.analyses[s.analysis];
+  const entered = property === "carbon" ? a?.carbon_uncertainty_pct : a?.cv_uncertainty_pct;
+  const fallback = property === "carbon" ? set.analysis_uncertainty?.carbon : set.analysis_uncertainty?.calorific;
+  const pct = entered ?? (fallback ? dec(fallback.value) : null);
+  if (entered === undefined && fallback) {
+    const what = property === "carbon" ? "carbon content" : "calorific value";
+    pushOnce(flags, { code: "analysis-uncertainty-default", severity: "info",
+      message: `Analysis ${s.analysis} states no uncertainty of its ${what}; ${fallback.value} % (95 %) is used (${fallback.source}).` });
+  }
+  const rel = relStd(pct, K95);
+  return rel === null || rel.isZero() ? {} : { analysis_key: `${s.analysis}:${property}`, analysis_rel_std: rel };
+}
+
 export function relStd(expandedPct: Decimal | string | null | undefined, k: Decimal): Decimal | null {
   if (expandedPct === null || expandedPct === undefined) return null;
   return dec(expandedPct).div(100).div(k);

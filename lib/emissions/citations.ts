@@ -57,6 +57,15 @@ export function citationsFor(input: EmissionsInput, set: FactorSet, gwp: GwpSet,
       if (fuel.n2o) out.push(cite(`${key}.n2o`, `${fuel.label}: N2O from combustion`, fuel.n2o));
     }
   }
+  // The set's default uncertainty of a gas analysis, where an analysis in use states none.
+  const used = new Set(streamsOf(input, "feed-gas", "fuel-gas", "purge-gas").flatMap((s) => (s.analysis ? [s.analysis] : [])));
+  const au = set.analysis_uncertainty;
+  if (au && [...used].some((id) => input.analyses[id]?.carbon_uncertainty_pct === undefined)) {
+    out.push(cite("analysis-uncertainty.carbon", "Uncertainty of an analysis's carbon content (default)", au.carbon));
+  }
+  if (au && [...used].some((id) => input.analyses[id]?.cv_uncertainty_pct === undefined)) {
+    out.push(cite("analysis-uncertainty.calorific", "Uncertainty of an analysis's calorific value (default)", au.calorific));
+  }
   const destinations = new Set(streamsOf(input, "co2-export").map((s) => s.destination ?? "other"));
   for (const d of destinations) {
     const rule = set.deduction_rules[d];

@@ -1,5 +1,5 @@
 import { citationsFor } from "./citations";
-import { ZERO, type Decimal } from "./decimal";
+import { K95, ZERO, dec, type Decimal } from "./decimal";
 import type { FactorSet } from "./factor-set-schema";
 import { gwpSet } from "./gwp";
 import { compareBenchmarks, intensities, theoreticalMinimum } from "./intensity";
@@ -7,12 +7,12 @@ import { carbonMassBalance } from "./methods/carbon-mass-balance";
 import { defaultFactor } from "./methods/default-factor";
 import { fuelCalculation } from "./methods/fuel-calculation";
 import { measured } from "./methods/measured";
-import type { MethodOutcome, StreamEmission } from "./model";
+import type { MethodOutcome, StreamEmission, UncertaintyTerm } from "./model";
 import { nonCo2 } from "./non-co2";
 import { defaultRegistry, type FactorSetRegistry } from "./registry";
 import type { EmissionsResult } from "./result";
 import { transfers } from "./transfers";
-import { assessTiers, propagate } from "./uncertainty";
+import { assessTiers, propagate, type MeterSplit } from "./uncertainty";
 import type { EmissionsInput, EmissionsMethod, Flag } from "./types";
 
 const METHODS: Record<EmissionsMethod, (i: EmissionsInput, s: FactorSet) => MethodOutcome> = {
@@ -90,7 +90,14 @@ export function computeEmissions(input: EmissionsInput, registry: FactorSetRegis
 
   const emissions = { co2_t: co2, ch4_t: ch4, n2o_t: n2o, co2e_t: co2e, transferred_co2_t: tr.transferred_t, net_co2e_t: netCo2e };
   const intensity = intensities(input, set, emissions, flags);
-  const uncertainty = { co2: propagate(outcome.terms), net_co2: propagate([...outcome.terms, ...tr.deduction_terms]) };
+  const splits = meterSplits(input);
+  const gasTerms: UncertaintyTerm[] = nc.flatMap((r) => r.terms.map(({ gas, ...t }) => ({ ...t, value_t: t.value_t.times(gas === "ch4" ? gwp.ch4 : gwp.n2o) })));
+  const uncertainty = {
+    co2: propagate(outcome.terms, K95, splits),
+    net_co2: propagate([...outcome.terms, ...tr.deduction_terms], K95, splits),
+    co2e: propagate([...outcome.terms, ...gasTerms], K95, splits),
+    net_co2e: propagate([...outcome.terms, ...gasTerms, ...tr.deduction_terms], K95, splits),
+  };
   if (uncertainty.co2.meters_without_uncertainty.length > 0) {
     flags.push({ code: "uncertainty-incomplete", severity: "warning",
       message: `No uncertainty_pct for ${uncertainty.co2.meters_without_uncertainty.join(", ")}: the stated uncertainty is understated.` });
@@ -125,6 +132,15 @@ export function computeEmissions(input: EmissionsInput, registry: FactorSetRegis
   };
 }
 
+
+/** Each meter's systematic share and calibration period, from the streams (absent: all systematic, period unknown). */
+function meterSplits(input: EmissionsInput): Map<string, MeterSplit> {
+  const out = new Map<string, MeterSplit>();
+  for (const s of input.streams) {
+    out.set(s.id, { systematic_share: s.systematic_pct === undefined ? dec(1) : dec(s.systematic_pct).div(100), period: s.calibrated_on ?? null });
+  }
+  return out;
+}
 
 /** The calorific basis of the set's natural-gas factors (NCV unless the set states GCV). */
 function energyBasisOf(set: FactorSet): "NCV" | "GCV" {

@@ -121,6 +121,11 @@ export const factorSetSchema = z
       urea: deductionRuleSchema, storage: deductionRuleSchema, sale: deductionRuleSchema, other: deductionRuleSchema,
     }),
     activity_tiers: z.array(tierSchema).optional(),
+    /**
+     * Default expanded (95 %) relative uncertainty, in %, of a month's gas analysis where the
+     * analysis states none: of its carbon content and of its calorific value.
+     */
+    analysis_uncertainty: z.object({ carbon: citedValueSchema, calorific: citedValueSchema }).optional(),
     grid_electricity: citedValueSchema.optional(),
     steam: citedValueSchema.optional(),
   })

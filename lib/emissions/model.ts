@@ -13,6 +13,9 @@ export interface UncertaintyTerm {
   meter_rel_std?: Decimal | null;   // null: the meter has no stated uncertainty
   factor_key?: string;              // e.g. "ipcc-2006:natural-gas:co2"
   factor_rel_std?: Decimal;
+  /** The month's gas analysis behind the term: "<analysis id>:carbon" or "<analysis id>:cv". */
+  analysis_key?: string;
+  analysis_rel_std?: Decimal;
 }
 
 /** How a stream contributes, in the units and with the factor actually used. */

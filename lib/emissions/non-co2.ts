@@ -1,10 +1,24 @@
-import { ZERO, dec, type Decimal } from "./decimal";
-import { M_CH4, activityLabel, activityOf, fuelFor, streamsOf } from "./activity";
-import type { FactorSet } from "./factor-set-schema";
-import { pushOnce } from "./model";
-import type { EmissionsInput, Flag } from "./types";
+import { K95, ZERO, dec, type Decimal } from "./decimal";
+import { M_CH4, activityLabel, activityOf, analysisStd, fuelFor, relStd, streamsOf } from "./activity";
+import type { CitedValue, FactorSet } from "./factor-set-schema";
+import { pushOnce, type UncertaintyTerm } from "./model";
+import type { EmissionsInput, Flag, StreamFigures } from "./types";
 
-export interface NonCo2Row { id: string; ch4_t: Decimal; n2o_t: Decimal; basis: string }
+/** An uncertainty term in tonnes of the gas itself; compute.ts turns it into CO2e with the GWP. */
+export type GasTerm = UncertaintyTerm & { gas: "ch4" | "n2o" };
+export interface NonCo2Row { id: string; ch4_t: Decimal; n2o_t: Decimal; basis: string; terms: GasTerm[] }
+
+const ENERGY_UNITS = new Set(["GJ-LHV", "GJ-HHV", "MMBtu-HHV"]);
+
+function gasTerm(input: EmissionsInput, set: FactorSet, s: StreamFigures, gas: "ch4" | "n2o", t: Decimal, factor: CitedValue,
+  fuelKey: string, viaEnergy: boolean, flags: Flag[]): GasTerm {
+  const factorStd = relStd(factor.uncertainty_pct, K95);
+  return {
+    gas, value_t: t, stream_id: s.id, meter_rel_std: relStd(s.uncertainty_pct, K95),
+    ...(viaEnergy && !ENERGY_UNITS.has(s.unit) ? analysisStd(input, set, s, "cv", flags) : {}),
+    ...(factorStd ? { factor_key: `${set.id}:${fuelKey}:${gas}`, factor_rel_std: factorStd } : {}),
+  };
+}
 
 /**
  * CH4 and N2O from combustion: fuel gas and purge burnt as fuel, activity × the set's factors
@@ -31,7 +45,11 @@ export function nonCo2(input: EmissionsInput, set: FactorSet, flags: Flag[]): No
     }
     const ch4 = fuel.ch4 ? act.times(dec(fuel.ch4.value)).div(1000) : ZERO;
     const n2o = fuel.n2o ? act.times(dec(fuel.n2o.value)).div(1000) : ZERO;
-    rows.push({ id: s.id, ch4_t: ch4, n2o_t: n2o,
+    const viaEnergy = fuel.activity.kind === "energy";
+    const terms: GasTerm[] = [];
+    if (fuel.ch4) terms.push(gasTerm(input, set, s, "ch4", ch4, fuel.ch4, key, viaEnergy, flags));
+    if (fuel.n2o) terms.push(gasTerm(input, set, s, "n2o", n2o, fuel.n2o, key, viaEnergy, flags));
+    rows.push({ id: s.id, ch4_t: ch4, n2o_t: n2o, terms,
       basis: `combustion of ${key}: ${fuel.ch4?.value ?? "–"} kg CH4 and ${fuel.n2o?.value ?? "–"} kg N2O per ${activityLabel(fuel.activity)}` });
   }
   for (const s of streamsOf(input, "purge-gas")) {
@@ -43,7 +61,9 @@ export function nonCo2(input: EmissionsInput, set: FactorSet, flags: Flag[]): No
       continue;
     }
     if (s.carbon_kmol === null) continue;
-    rows.push({ id: s.id, ch4_t: dec(s.carbon_kmol).times(M_CH4).div(1000), n2o_t: ZERO,
+    const ch4 = dec(s.carbon_kmol).times(M_CH4).div(1000);
+    rows.push({ id: s.id, ch4_t: ch4, n2o_t: ZERO,
+      terms: [{ gas: "ch4", value_t: ch4, stream_id: s.id, meter_rel_std: relStd(s.uncertainty_pct, K95), ...analysisStd(input, set, s, "carbon", flags) }],
       basis: "vented purge: carbon leaves as CH4 (kmol C × 16.043 kg/kmol)" });
   }
   return rows;

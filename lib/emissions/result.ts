@@ -34,7 +34,8 @@ export interface EmissionsResult {
   theoretical_minimum: TheoreticalMinimum | null;
   balance_check: BalanceCheck | null;
   /** co2: of emissions.co2_t (gross); net_co2: of co2.net_t (deducted exports with their meters). */
-  uncertainty: { co2: UncertaintyFigures; net_co2: UncertaintyFigures };
+  /** Gross and net CO2, and gross and net CO2e (CH4 and N2O with their factor ranges, at the month's GWP). */
+  uncertainty: { co2: UncertaintyFigures; net_co2: UncertaintyFigures; co2e: UncertaintyFigures; net_co2e: UncertaintyFigures };
   tiers: MeterTier[];
   /** The cited values this month's figures rest on, each marked when taken from memory. */
   citations: Citation[];

@@ -16,6 +16,9 @@ export interface StreamFigures {
   unit: string;                                          // unit as written in the file
   quantity: Decimal;                                     // quantity as written in the file
   uncertainty_pct: Decimal | null;                       // expanded, 95 %, of the monthly total
+  metered?: false;                                       // a stream no meter measures (quantity solved or estimated)
+  systematic_pct?: Decimal;                              // share of the meter's uncertainty repeating monthly, %; absent: 100
+  calibrated_on?: string;                                // last calibration as of the month; a new date starts an independent period
   kmol: Decimal | null;        // amount of substance (gas streams, NH3, CO2 streams); null for MWh/steam
   t: Decimal | null;           // mass in tonnes; null for MWh/steam
   carbon_kmol: Decimal | null; // kmol of carbon atoms carried (CO2 streams: kmol CO2); null where no carbon
@@ -43,6 +46,8 @@ export interface AnalysisFigures {
   carbon_atoms_per_mol: Decimal;    // mol C per mol gas
   ncv_mj_per_kg: Decimal;           // net, mass basis
   gcv_mj_per_kg: Decimal;           // gross, mass basis
+  carbon_uncertainty_pct?: Decimal; // expanded (95 %) relative, %, entered with the analysis; absent: the set's default
+  cv_uncertainty_pct?: Decimal;     // likewise for the calorific value
 }
 
 // ---- Shared shapes ----

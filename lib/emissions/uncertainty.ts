@@ -5,31 +5,60 @@ import type { EmissionsInput, StreamKind } from "./types";
 
 export interface UncertaintyComponent { key: string; u_std_t: Decimal }
 
+/**
+ * One meter's part, split into what repeats every month until the meter is recalibrated
+ * (systematic: calibration error) and what is new each month (random). `period` names the
+ * calibration the systematic part belongs to (the meter's calibration date), null when unknown.
+ */
+export interface MeterComponent extends UncertaintyComponent {
+  systematic_u_std_t: Decimal;
+  random_u_std_t: Decimal;
+  period: string | null;
+}
+
+/** How a meter's uncertainty is split, per stream id (absent: all systematic, period unknown). */
+export interface MeterSplit { systematic_share: Decimal; period: string | null }
+
 export interface UncertaintyFigures {
   value_t: Decimal;
   u_std_t: Decimal;                       // combined standard uncertainty
   u95_t: Decimal;                         // expanded, coverage factor 1.96 (95 %, normal)
   u95_pct: Decimal | null;                // relative to |value|; null when value is zero
-  meter_u_std_t: Decimal;                 // independent part (meters)
+  meter_u_std_t: Decimal;                 // part from meters
+  meter_systematic_u_std_t: Decimal;      // of it, the part repeating until recalibration
+  meter_random_u_std_t: Decimal;          // of it, the part new each month
+  analysis_u_std_t: Decimal;              // part from the gas analyses (carbon content, calorific value)
   factor_u_std_t: Decimal;                // part from factors
-  meter_components: UncertaintyComponent[];  // one per meter
+  meter_components: MeterComponent[];     // one per meter
+  analysis_components: UncertaintyComponent[]; // one per analysis and property ("ng:carbon")
   factor_components: UncertaintyComponent[]; // one per factor key
   coverage_factor: Decimal;
   meters_without_uncertainty: string[];
+  /** How the parts were combined, in words (the year states its correlation model here). */
+  correlation: string;
 }
 
+export const MONTH_CORRELATION =
+  "meters independent of each other; a meter, an analysis property or a factor used in several terms is fully correlated with itself; the three parts independent of each other";
+
+const ONE = dec(1);
+
 /**
- * GUM first-order propagation for a figure that is a sum of products meter × factor. The
- * sensitivity of the sum to a relative error of an input is the term value itself, so
+ * GUM first-order propagation for a figure that is a sum of products meter × analysis × factor.
+ * The sensitivity of the sum to a relative error of an input is the term value itself, so
  *   u_meter² = Σ_meters (Σ_terms of that meter value × u_rel,meter)²
+ *   u_analysis² = Σ_analysis properties (Σ_terms using it value × u_rel)²
  *   u_factor² = Σ_factor keys (Σ_terms using that factor value × u_rel,factor)²
- * A meter appearing in several terms, or a factor multiplying several streams (natural gas for
- * feed and fuel), is fully correlated with itself: its contributions add linearly before
- * squaring. Different meters and different factors are independent. Inputs are expanded (95 %)
- * uncertainties; they are divided by 1.96 to standard and the result multiplied back.
+ * A meter appearing in several terms, an analysis giving the carbon of feed and fuel, or a factor
+ * multiplying several streams is fully correlated with itself: its contributions add linearly
+ * before squaring. Different meters, analyses and factors are independent. Inputs are expanded
+ * (95 %) uncertainties; they are divided by 1.96 to standard and the result multiplied back.
+ * Each meter's part is split by `splits` into systematic and random (u_sys = u·√share, so that
+ * u_sys² + u_rand² = u²); within one month the split changes nothing, across months it does.
  */
-export function propagate(terms: UncertaintyTerm[], k: Decimal = K95): UncertaintyFigures {
+export function propagate(terms: UncertaintyTerm[], k: Decimal = K95, splits: ReadonlyMap<string, MeterSplit> = new Map()): UncertaintyFigures {
   const meters = new Map<string, Decimal>();
+  const analyses = new Map<string, Decimal>();
   const factors = new Map<string, Decimal>();
   const missing = new Set<string>();
   let value = ZERO;
@@ -41,29 +70,50 @@ export function propagate(terms: UncertaintyTerm[], k: Decimal = K95): Uncertain
     } else {
       meters.set(id, (meters.get(id) ?? ZERO).plus(t.value_t.times(t.meter_rel_std)));
     }
+    if (t.analysis_key && t.analysis_rel_std) {
+      analyses.set(t.analysis_key, (analyses.get(t.analysis_key) ?? ZERO).plus(t.value_t.times(t.analysis_rel_std)));
+    }
     if (t.factor_key && t.factor_rel_std) {
       factors.set(t.factor_key, (factors.get(t.factor_key) ?? ZERO).plus(t.value_t.times(t.factor_rel_std)));
     }
   }
-  const meterComponents = [...meters].map(([key, u]) => ({ key, u_std_t: u.abs() }));
+  const meterComponents: MeterComponent[] = [...meters].map(([key, signed]) => {
+    const u = signed.abs();
+    const split = splits.get(key);
+    const share = split?.systematic_share ?? ONE;
+    return meterComponent(key, u, share, split?.period ?? null);
+  });
+  const analysisComponents = [...analyses].map(([key, u]) => ({ key, u_std_t: u.abs() }));
   const factorComponents = [...factors].map(([key, u]) => ({ key, u_std_t: u.abs() }));
-  const meterU = rss(meterComponents.map((c) => c.u_std_t));
-  const factorU = rss(factorComponents.map((c) => c.u_std_t));
-  return summarise(value, meterU, factorU, meterComponents, factorComponents, [...missing], k);
+  return summarise(value, meterComponents, analysisComponents, factorComponents, [...missing], k, MONTH_CORRELATION);
+}
+
+/** A meter part of standard uncertainty u with the given systematic share (0–1) of its variance. */
+export function meterComponent(key: string, u: Decimal, share: Decimal, period: string | null): MeterComponent {
+  const sys = share.eq(1) ? u : share.isZero() ? ZERO : u.times(sqrtOf(share));
+  const rand = share.eq(1) ? ZERO : share.isZero() ? u : u.times(sqrtOf(ONE.minus(share)));
+  return { key, u_std_t: u, systematic_u_std_t: sys, random_u_std_t: rand, period };
 }
 
 export function rss(values: Decimal[]): Decimal {
   return sqrtOf(values.reduce((a, v) => a.plus(v.times(v)), ZERO));
 }
 
-export function summarise(value: Decimal, meterU: Decimal, factorU: Decimal, meterComponents: UncertaintyComponent[],
-  factorComponents: UncertaintyComponent[], missing: string[], k: Decimal = K95): UncertaintyFigures {
-  const u = sqrtOf(meterU.times(meterU).plus(factorU.times(factorU)));
+export function summarise(value: Decimal, meterComponents: MeterComponent[], analysisComponents: UncertaintyComponent[],
+  factorComponents: UncertaintyComponent[], missing: string[], k: Decimal = K95, correlation: string = MONTH_CORRELATION,
+  meterTotals?: { systematic: Decimal; random: Decimal }): UncertaintyFigures {
+  const sys = meterTotals?.systematic ?? rss(meterComponents.map((c) => c.systematic_u_std_t));
+  const rand = meterTotals?.random ?? rss(meterComponents.map((c) => c.random_u_std_t));
+  const meterU = sqrtOf(sys.times(sys).plus(rand.times(rand)));
+  const analysisU = rss(analysisComponents.map((c) => c.u_std_t));
+  const factorU = rss(factorComponents.map((c) => c.u_std_t));
+  const u = sqrtOf(meterU.times(meterU).plus(analysisU.times(analysisU)).plus(factorU.times(factorU)));
   const u95 = u.times(k);
   return {
     value_t: value, u_std_t: u, u95_t: u95, u95_pct: value.isZero() ? null : u95.div(value.abs()).times(100),
-    meter_u_std_t: meterU, factor_u_std_t: factorU, meter_components: meterComponents,
-    factor_components: factorComponents, coverage_factor: k, meters_without_uncertainty: missing,
+    meter_u_std_t: meterU, meter_systematic_u_std_t: sys, meter_random_u_std_t: rand, analysis_u_std_t: analysisU,
+    factor_u_std_t: factorU, meter_components: meterComponents, analysis_components: analysisComponents,
+    factor_components: factorComponents, coverage_factor: k, meters_without_uncertainty: missing, correlation,
   };
 }
 

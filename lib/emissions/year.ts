@@ -1,7 +1,7 @@
-import { ZERO, dec, type Decimal } from "./decimal";
+import { ZERO, dec, sqrtOf, type Decimal } from "./decimal";
 import type { EmissionsResult } from "./result";
 import type { Destination, EmissionsInput, Flag } from "./types";
-import { rss, summarise, type UncertaintyComponent, type UncertaintyFigures } from "./uncertainty";
+import { rss, summarise, type MeterComponent, type UncertaintyComponent, type UncertaintyFigures } from "./uncertainty";
 
 export interface YearMonthEntry { month: string; input: EmissionsInput; result: EmissionsResult }
 
@@ -23,33 +23,53 @@ export interface YearResult {
     indirect_complete: boolean;
     co2e_incl_indirect_t_per_t_nh3: Decimal | null;
   };
-  uncertainty: { co2: UncertaintyFigures; net_co2: UncertaintyFigures };
+  uncertainty: { co2: UncertaintyFigures; net_co2: UncertaintyFigures; co2e: UncertaintyFigures; net_co2e: UncertaintyFigures };
   flags: Flag[];
 }
 
 const MONTH_NAMES = ["January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December"];
 
+export const YEAR_CORRELATION =
+  "meters: the systematic part of each meter fully correlated across the months of one calibration period (periods independent), the random part independent month to month; analyses: independent month to month (each month its own samples); factors: fully correlated across months (the same value every month); different meters, analyses and factors independent";
+
 /**
- * Annual uncertainty model. Each month's CO2 uncertainty splits into a meter part and factor
- * parts (one per factor key, see uncertainty.ts).
- *  - Factors: the same factor value is used every month, so an error in it repeats in every month
- *    — fully correlated. Per factor key the monthly absolute standard uncertainties add linearly;
- *    different factor keys stay independent (root-sum-square).
- *  - Meters: a monthly total's error is taken as independent of the next month's (random
- *    reading and integration error), so the monthly meter parts add in quadrature. A systematic
- *    meter bias would be correlated too; we do not model it, which understates the annual figure
- *    when calibration drifts slowly.
- * u_year² = Σ_m u_meter,m² + Σ_keys (Σ_m u_key,m)²; expanded with the same k = 1.96.
+ * Annual uncertainty (GUM 5.2, correlated input quantities: u²(y) = Σ u_i² + 2 Σ_{i<j} r_ij u_i u_j,
+ * with r = 1 or 0 as stated in YEAR_CORRELATION). Per meter m and calibration period p:
+ *   u²_meter,year = Σ_m [ Σ_p (Σ_{months in p} s_m,month)² + Σ_months r_m,month² ]
+ * where s and r are the systematic and random parts of the month (uncertainty.ts); per analysis
+ * property the months add in quadrature; per factor key the months add linearly:
+ *   u²_year = u²_meter,year + Σ_keys Σ_months a² + Σ_keys (Σ_months f)².
+ * A meter whose months name no calibration date is one period: all its months correlated.
  */
 function combine(parts: UncertaintyFigures[]): UncertaintyFigures {
   const value = parts.reduce((a, p) => a.plus(p.value_t), ZERO);
-  const meterU = rss(parts.map((p) => p.meter_u_std_t));
+  const meters = new Map<string, { periods: Map<string, Decimal>; random2: Decimal }>();
+  for (const p of parts) {
+    for (const c of p.meter_components) {
+      const m = meters.get(c.key) ?? { periods: new Map<string, Decimal>(), random2: ZERO };
+      const period = c.period ?? "";
+      // A month frozen before meters were split reads as all systematic, period unknown.
+      const sysPart = c.systematic_u_std_t ?? c.u_std_t;
+      const randPart = c.random_u_std_t ?? ZERO;
+      m.periods.set(period, (m.periods.get(period) ?? ZERO).plus(sysPart));
+      m.random2 = m.random2.plus(randPart.times(randPart));
+      meters.set(c.key, m);
+    }
+  }
+  const meterComponents: MeterComponent[] = [...meters].map(([key, m]) => {
+    const sys = rss([...m.periods.values()]);
+    const rand = sqrtOf(m.random2);
+    const named = [...m.periods.keys()].filter((k) => k !== "");
+    return { key, u_std_t: sqrtOf(sys.times(sys).plus(m.random2)), systematic_u_std_t: sys, random_u_std_t: rand, period: named.length ? named.join(", ") : null };
+  });
+  const analysis2 = new Map<string, Decimal>();
+  for (const p of parts) for (const c of p.analysis_components ?? []) analysis2.set(c.key, (analysis2.get(c.key) ?? ZERO).plus(c.u_std_t.times(c.u_std_t)));
+  const analysisComponents: UncertaintyComponent[] = [...analysis2].map(([key, v]) => ({ key, u_std_t: sqrtOf(v) }));
   const factorByKey = new Map<string, Decimal>();
   for (const p of parts) for (const c of p.factor_components) factorByKey.set(c.key, (factorByKey.get(c.key) ?? ZERO).plus(c.u_std_t));
   const factorComponents: UncertaintyComponent[] = [...factorByKey].map(([key, u]) => ({ key, u_std_t: u }));
-  const meterComponents: UncertaintyComponent[] = parts.flatMap((p, i) => p.meter_components.map((c) => ({ key: `${i}:${c.key}`, u_std_t: c.u_std_t })));
   const missing = [...new Set(parts.flatMap((p) => p.meters_without_uncertainty))];
-  return summarise(value, meterU, rss(factorComponents.map((c) => c.u_std_t)), meterComponents, factorComponents, missing, parts[0]?.coverage_factor);
+  return summarise(value, meterComponents, analysisComponents, factorComponents, missing, parts[0]?.coverage_factor, YEAR_CORRELATION);
 }
 
 function sumOf(entries: YearMonthEntry[], pick: (r: EmissionsResult) => Decimal): Decimal {
@@ -91,6 +111,11 @@ export function rollUpYear(months: YearMonthEntry[]): YearResult {
       flags.push({ code: `mixed-${key.replace("_", "-")}`, severity: "warning", message: `Months use different ${key.replace("_", " ")}s: ${[...values].join(", ")}.` });
     }
   }
+  const before = entries.filter((e) => !e.result.uncertainty.co2e).map((e) => e.month);
+  if (before.length > 0) {
+    flags.push({ code: "uncertainty-co2-only", severity: "info",
+      message: `${before.join(", ")} were frozen before CO2e carried its own uncertainty: the year's CO2e uncertainty counts their CO2 only.` });
+  }
   if (entries.some((e) => e.result.screening_estimate)) {
     flags.push({ code: "screening-estimate", severity: "warning", message: "Some months are screening estimates (default factor), not monitored figures." });
   }
@@ -121,6 +146,8 @@ export function rollUpYear(months: YearMonthEntry[]): YearResult {
     uncertainty: {
       co2: combine(entries.map((e) => e.result.uncertainty.co2)),
       net_co2: combine(entries.map((e) => e.result.uncertainty.net_co2)),
+      co2e: combine(entries.map((e) => e.result.uncertainty.co2e ?? e.result.uncertainty.co2)),
+      net_co2e: combine(entries.map((e) => e.result.uncertainty.net_co2e ?? e.result.uncertainty.net_co2)),
     },
     flags,
   };

@@ -129,7 +129,7 @@ export function documentInput(b: Pick<MonthBundle, "site" | "month" | "streams" 
     method,
     streams: b.streams,
     readings: b.readings.map((r) => ({ streamId: r.streamId, quantity: r.quantity, unit: r.unit, note: r.note })),
-    analyses: b.analyses.map((a) => ({ key: a.key, components: a.components, note: a.note })),
+    analyses: b.analyses.map((a) => ({ key: a.key, components: a.components, carbonUncertaintyPct: a.carbonUncertaintyPct, cvUncertaintyPct: a.cvUncertaintyPct, note: a.note })),
   };
 }
 

@@ -39,16 +39,29 @@ export interface SaveResult {
  * editor says which version they started from, and a save over a newer version is refused with
  * what changed since (from the audit trail), so nothing anyone typed is silently lost.
  */
-function sameAnalysis(
-  old: { components: Record<string, string>; sampledOn: string | null; laboratory: string | null; note: string | null },
-  next: { components: Record<string, string>; sampledOn: string | null; laboratory: string | null; note: string | null },
-): boolean {
+interface AnalysisValues {
+  components: Record<string, string>;
+  sampledOn: string | null;
+  laboratory: string | null;
+  carbonUncertaintyPct: string | null;
+  cvUncertaintyPct: string | null;
+  note: string | null;
+}
+const samePct = (a: string | null, b: string | null) => (a === null || b === null ? a === b : new Dec(a).eq(b));
+
+function sameAnalysis(old: AnalysisValues, next: AnalysisValues): boolean {
   const a = Object.entries(old.components).filter(([, v]) => v !== undefined && v !== "");
   const b = Object.entries(next.components).filter(([, v]) => v !== undefined && v !== "");
   if (a.length !== b.length) return false;
   const byKey = new Map(b);
   if (!a.every(([k, v]) => byKey.has(k) && new Dec(v).eq(byKey.get(k)!))) return false;
-  return (old.sampledOn || null) === next.sampledOn && (old.laboratory || null) === next.laboratory && (old.note || null) === next.note;
+  return (
+    (old.sampledOn || null) === next.sampledOn &&
+    (old.laboratory || null) === next.laboratory &&
+    samePct(old.carbonUncertaintyPct, next.carbonUncertaintyPct) &&
+    samePct(old.cvUncertaintyPct, next.cvUncertaintyPct) &&
+    (old.note || null) === next.note
+  );
 }
 
 export interface SaveOptions {
@@ -160,7 +173,10 @@ export async function saveMonthFigures(db: Db, editor: Editor, siteId: string, p
     for (const a of input.analyses) {
       const components = Object.fromEntries(Object.entries(a.components).map(([c, v]) => [c, new Dec(v).toFixed()]));
       const [old] = await tx.select().from(gasAnalyses).where(and(eq(gasAnalyses.monthId, month.id), eq(gasAnalyses.key, a.key)));
-      const values = { components, sampledOn: a.sampledOn || null, laboratory: a.laboratory || null, note: a.note || null };
+      const values: AnalysisValues = {
+        components, sampledOn: a.sampledOn || null, laboratory: a.laboratory || null,
+        carbonUncertaintyPct: a.carbonUncertaintyPct || null, cvUncertaintyPct: a.cvUncertaintyPct || null, note: a.note || null,
+      };
       // Unchanged when every component has the same value (93.10 = 93.1, in any order) and the
       // sample's date, laboratory and note are the same: a form re-sending it is not a change.
       if (old && sameAnalysis(old, values)) continue;
@@ -177,7 +193,7 @@ export async function saveMonthFigures(db: Db, editor: Editor, siteId: string, p
         action: old ? "analysis.changed" : "analysis.added",
         entity: "analysis",
         entityId: `${period}/${a.key}`,
-        before: old ? { components: old.components, sampledOn: old.sampledOn, laboratory: old.laboratory, note: old.note } : null,
+        before: old ? { components: old.components, sampledOn: old.sampledOn, laboratory: old.laboratory, carbonUncertaintyPct: old.carbonUncertaintyPct, cvUncertaintyPct: old.cvUncertaintyPct, note: old.note } : null,
         after: { monthId: month.id, version, ...values },
       });
       changed++;

@@ -60,6 +60,10 @@ export const streamSchema = z
     destination: z.union([z.enum(DESTINATIONS), z.literal("")]).transform((v) => (v === "" ? null : v)),
     fate: z.union([z.enum(FATES), z.literal("")]).transform((v) => (v === "" ? null : v)),
     uncertaintyPct: optionalDecimal("Uncertainty", "100"),
+    /** False: no meter measures the flow and the balances solve for it. */
+    metered: z.boolean().default(true),
+    /** Share of the uncertainty that repeats every month until recalibration, %; empty: 100. */
+    systematicPct: optionalDecimal("Repeating share", "100").optional().transform((v) => v ?? null),
     indirectFactor: optionalDecimal("Indirect factor"),
     meterTag: optionalText(60, "Meter tag"),
     calibratedOn: z
@@ -88,6 +92,9 @@ export const streamSchema = z
     if (s.fate && s.kind !== "purge-gas") at("fate", "Only purge gas has a fate.");
     if (s.kind === "co2-export" && !s.destination) at("destination", "Say where the CO2 goes: urea, storage, sale or other.");
     if (s.destination && s.kind !== "co2-export") at("destination", "Only CO2 export has a destination.");
+    if (!s.metered && s.uncertaintyPct) at("uncertaintyPct", "A stream no meter measures has no meter uncertainty: leave it empty, the balances give its figure.");
+    if (!s.metered && s.systematicPct) at("systematicPct", "A stream no meter measures has no meter uncertainty to split.");
+    if (!s.metered && s.meterTag) at("meterTag", "A stream no meter measures has no meter tag.");
     if (s.indirectFactor && !INDIRECT_FACTOR_UNIT[s.kind]) at("indirectFactor", "Only electricity and steam streams carry an indirect factor.");
   });
 export type StreamInput = z.input<typeof streamSchema>;
@@ -102,6 +109,8 @@ export const STREAM_DEFAULTS: StreamInput = {
   destination: "",
   fate: "",
   uncertaintyPct: "",
+  metered: true,
+  systematicPct: "",
   indirectFactor: "",
   meterTag: "",
   calibratedOn: "",

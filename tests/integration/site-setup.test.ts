@@ -111,6 +111,18 @@ describe("stream actions", () => {
     expect((await events(org.id, "stream")).length).toBe(before);
   });
 
+  it("sets up a stream no meter measures: no meter facts allowed, stored as not metered", async () => {
+    actAs(org.session("administrator"));
+    const vent = { ...STREAM_DEFAULTS, key: "vent", name: "CO2 vent", kind: "co2-vent" as const, unit: "t", metered: false };
+    const refused = await createStream(org.siteId, { ...vent, uncertaintyPct: "2", meterTag: "FT-9" });
+    expect(refused.ok).toBe(false);
+    expect(Object.keys(refused.ok ? {} : refused.errors ?? {}).sort()).toEqual(["meterTag", "uncertaintyPct"]);
+    const r = await createStream(org.siteId, vent);
+    expect(r.ok).toBe(true);
+    const [row] = await testDb().select().from(streams).where(eq(streams.id, r.ok ? r.data!.id : ""));
+    expect(row).toMatchObject({ key: "vent", metered: false, uncertaintyPct: null, meterTag: null });
+  });
+
   it("checks the rules of each kind with field names", async () => {
     actAs(org.session("administrator"));
     const r = await createStream(org.siteId, { ...STREAM_DEFAULTS, key: "purge", name: "Purge", kind: "purge-gas", unit: "MWh", indirectFactor: "0.2" });

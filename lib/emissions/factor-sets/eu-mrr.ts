@@ -1,3 +1,4 @@
+import { ANALYSIS_DEFAULT_UNCERTAINTY } from "./analysis-default";
 import type { CitedValue, FactorSet, FuelFactors } from "../factor-set-schema";
 import { TABLE_3_1_ROWS } from "./ipcc-table-3-1";
 
@@ -66,4 +67,5 @@ export const EU_MRR: FactorSet = {
     other: { deducted: false, source: "Reg. (EU) 601/2012 Art 49(1): no subtraction for transfers other than to storage", status: "confirmed", checked: READ_601 },
   },
   activity_tiers: [tier(1, "7.5"), tier(2, "5"), tier(3, "2.5"), tier(4, "1.5")],
+  analysis_uncertainty: ANALYSIS_DEFAULT_UNCERTAINTY,
 };

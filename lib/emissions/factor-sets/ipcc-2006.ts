@@ -1,3 +1,4 @@
+import { ANALYSIS_DEFAULT_UNCERTAINTY } from "./analysis-default";
 import type { CitedValue, FactorSet, FuelFactors } from "../factor-set-schema";
 import { TABLE_3_1_REFERENCES, TABLE_3_1_ROWS } from "./ipcc-table-3-1";
 
@@ -11,8 +12,12 @@ function m(value: string, unit: string, source: string, extra: Partial<CitedValu
 const V2 = "IPCC 2006 Guidelines Vol 2 Ch";
 
 const gaseousNonCo2 = {
-  ch4: m("1", "kg CH4/TJ NCV", `${V2} 2 Table 2.2 (natural gas, energy industries)`),
-  n2o: m("0.1", "kg N2O/TJ NCV", `${V2} 2 Table 2.2 (natural gas, energy industries)`),
+  // Ranges 0.3–3 and 0.03–0.3 (the table's lower and upper values); their half-width, relative to
+  // the default, is taken as the expanded uncertainty. Unconfirmed like the defaults themselves.
+  ch4: m("1", "kg CH4/TJ NCV", `${V2} 2 Table 2.2 (natural gas, energy industries)`, {
+    uncertainty_pct: "135", note: "half-width of the 0.3–3 kg/TJ range of the table, relative to 1 (range unconfirmed)" }),
+  n2o: m("0.1", "kg N2O/TJ NCV", `${V2} 2 Table 2.2 (natural gas, energy industries)`, {
+    uncertainty_pct: "135", note: "half-width of the 0.03–0.3 kg/TJ range of the table, relative to 0.1 (range unconfirmed)" }),
   oxidation_factor: m("1", "fraction", `${V2} 1 §1.4.2.1 (default oxidation factor 1); Vol 3 §3.2 COF = 1`),
 };
 
@@ -50,6 +55,7 @@ export const IPCC_2006: FactorSet = {
   default_row: "average-natural-gas",
   benchmarks: TABLE_3_1_REFERENCES,
   gwp_default: "AR5",
+  analysis_uncertainty: ANALYSIS_DEFAULT_UNCERTAINTY,
   deduction_rules: {
     urea: { deducted: true, source: "IPCC 2006 Vol 3 §3.2 Eq 3.1, R(CO2) recovered for urea", status: "unconfirmed",
       note: "counted instead where the urea is applied (Vol 4 Ch 11)" },

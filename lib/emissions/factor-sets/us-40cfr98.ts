@@ -1,3 +1,4 @@
+import { ANALYSIS_DEFAULT_UNCERTAINTY } from "./analysis-default";
 import type { CitedValue, FactorSet, FuelFactors } from "../factor-set-schema";
 import { TABLE_3_1_ROWS } from "./ipcc-table-3-1";
 
@@ -16,8 +17,11 @@ const READ_G = "§ 98.73(b) Eq G-1 and its definitions, in a verbatim eCFR repro
 const READ_72 = "§ 98.72(a), in a verbatim eCFR reproduction";
 
 const nonCo2 = {
-  ch4: p("1.0E-03", "kg CH4/MMBtu HHV", "40 CFR 98 Subpart C Table C-2 (natural gas)", READ_C2),
-  n2o: p("1.0E-04", "kg N2O/MMBtu HHV", "40 CFR 98 Subpart C Table C-2 (natural gas)", READ_C2),
+  // Table C-2 states no uncertainty; the IPCC 2006 range for the same factors is applied (and said so).
+  ch4: p("1.0E-03", "kg CH4/MMBtu HHV", "40 CFR 98 Subpart C Table C-2 (natural gas)", READ_C2, {
+    uncertainty_pct: "135", note: "uncertainty: Table C-2 states none; the half-width of the range of IPCC 2006 Vol 2 Ch 2 Table 2.2 (0.3–3 × the default, unconfirmed) is applied" }),
+  n2o: p("1.0E-04", "kg N2O/MMBtu HHV", "40 CFR 98 Subpart C Table C-2 (natural gas)", READ_C2, {
+    uncertainty_pct: "135", note: "uncertainty: Table C-2 states none; the half-width of the range of IPCC 2006 Vol 2 Ch 2 Table 2.2 (0.03–0.3 × the default, unconfirmed) is applied" }),
   // Eq C-1 has no oxidation term: complete oxidation is assumed.
   oxidation_factor: m("1", "fraction", "40 CFR 98.33(a)(1) Eq C-1 (no oxidation term)"),
 };
@@ -62,6 +66,7 @@ export const US_40CFR98: FactorSet = {
   // Subpart G sets no product benchmark; IPCC's reference figures belong to the IPCC set.
   benchmarks: [],
   gwp_default: "AR5",
+  analysis_uncertainty: ANALYSIS_DEFAULT_UNCERTAINTY,
   deduction_rules: {
     urea: { deducted: false, source: "40 CFR 98.72(a): process CO2 includes CO2 later consumed for urea", status: "confirmed", checked: READ_72 },
     storage: { deducted: false, source: "40 CFR 98 Subpart G (captured CO2 reported under Subpart PP, not deducted)", status: "unconfirmed" },

@@ -1,5 +1,6 @@
 import { K95, ZERO, dec, type Decimal } from "../decimal";
-import { relStd, streamsOf } from "../activity";
+import { analysisStd, relStd, streamsOf } from "../activity";
+import type { FactorSet } from "../factor-set-schema";
 import type { EmissionsInput, Flag } from "../types";
 import type { StreamEmission, UncertaintyTerm } from "../model";
 
@@ -8,7 +9,7 @@ import type { StreamEmission, UncertaintyTerm } from "../model";
  * carbon-based methods take it out of the CO2 and the non-CO2 part counts it as CH4. Purge burnt
  * as fuel or flared stays in the CO2 already counted through the feed (carbon is counted once).
  */
-export function ventedPurgeCarbon(input: EmissionsInput, stoich: Decimal, flags: Flag[]):
+export function ventedPurgeCarbon(input: EmissionsInput, set: FactorSet, stoich: Decimal, flags: Flag[]):
   { rows: StreamEmission[]; terms: UncertaintyTerm[]; co2_t: Decimal } {
   const rows: StreamEmission[] = [];
   const terms: UncertaintyTerm[] = [];
@@ -24,7 +25,7 @@ export function ventedPurgeCarbon(input: EmissionsInput, stoich: Decimal, flags:
     total = total.plus(co2);
     rows.push({ id: s.id, kind: s.kind, co2_t: co2, ch4_t: ZERO, n2o_t: ZERO, co2e_t: ZERO,
       basis: "vented purge: its carbon leaves as methane, so it is taken out of the CO2" });
-    terms.push({ value_t: co2, stream_id: s.id, meter_rel_std: relStd(s.uncertainty_pct, K95) });
+    terms.push({ value_t: co2, stream_id: s.id, meter_rel_std: relStd(s.uncertainty_pct, K95), ...analysisStd(input, set, s, "carbon", flags) });
   }
   return { rows, terms, co2_t: total };
 }

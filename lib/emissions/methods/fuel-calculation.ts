@@ -1,9 +1,12 @@
 import { K95, ZERO, dec } from "../decimal";
-import { activityLabel, activityOf, carbonInputs, fuelFor, relStd, siteFactorFromAnalysis, stoichiometricFactor } from "../activity";
+import { activityLabel, activityOf, analysisStd, carbonInputs, fuelFor, relStd, siteFactorFromAnalysis, stoichiometricFactor } from "../activity";
 import type { FactorSet } from "../factor-set-schema";
 import { pushOnce, type MethodOutcome, type StreamEmission, type UncertaintyTerm } from "../model";
 import type { EmissionsInput, Flag } from "../types";
 import { notePurgeInternal, ventedPurgeCarbon } from "./carbon-common";
+
+/** Units in which a gas stream is metered as energy (no calorific value of an analysis involved). */
+const ENERGY_UNITS = new Set(["GJ-LHV", "GJ-HHV", "MMBtu-HHV"]);
 
 /**
  * Fuel-by-fuel calculation: activity × emission factor × oxidation factor for each feed and fuel
@@ -30,9 +33,7 @@ export function fuelCalculation(input: EmissionsInput, set: FactorSet): MethodOu
         basis: `carbon from analysis ${s.analysis ?? "?"} × stoichiometric factor × oxidation ${of.toString()}`,
         ...(site ? { co2_factor: { value: site.times(of), unit: `kg CO2/${activityLabel(fuel.activity)}`,
           origin: "analysis" as const, source: `analysis ${s.analysis}` } } : {}) });
-      terms.push({ value_t: co2, stream_id: s.id, meter_rel_std: meter });
-      pushOnce(flags, { code: "site-factor-uncertainty-not-included", severity: "info",
-        message: "Site-specific factors from analyses carry no stated uncertainty; only meter uncertainty is propagated for them." });
+      terms.push({ value_t: co2, stream_id: s.id, meter_rel_std: meter, ...analysisStd(input, set, s, "carbon", flags) });
       continue;
     }
     if (!fuel.co2) {
@@ -57,10 +58,13 @@ export function fuelCalculation(input: EmissionsInput, set: FactorSet): MethodOu
       pushOnce(flags, { code: "factor-uncertainty-unknown", severity: "info",
         message: `${fuel.co2.source} states no uncertainty for the ${key} CO2 factor; it is taken as exact.` });
     }
+    // A metered volume or mass becomes energy through the analysis's calorific value, which carries its own uncertainty.
+    const viaCv = fuel.activity.kind === "energy" && !ENERGY_UNITS.has(s.unit);
     terms.push({ value_t: co2, stream_id: s.id, meter_rel_std: meter,
+      ...(viaCv ? analysisStd(input, set, s, "cv", flags) : {}),
       ...(factorStd ? { factor_key: `${set.id}:${key}:co2`, factor_rel_std: factorStd } : {}) });
   }
-  const vent = ventedPurgeCarbon(input, stoich, flags);
+  const vent = ventedPurgeCarbon(input, set, stoich, flags);
   notePurgeInternal(input, flags);
   return {
     by_stream: [...rows, ...vent.rows], gross_co2_t: gross.plus(vent.co2_t), terms: [...terms, ...vent.terms],

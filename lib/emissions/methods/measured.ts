@@ -67,7 +67,7 @@ function checkAgainstBalance(input: EmissionsInput, set: FactorSet, measuredT: D
   const balanceTerms: UncertaintyTerm[] = inputs.map((s) => ({
     value_t: dec(s.carbon_t!).times(f), stream_id: s.id, meter_rel_std: relStd(s.uncertainty_pct, K95),
   }));
-  balanceTerms.push(...ventedPurgeCarbon(input, f, []).terms);
+  balanceTerms.push(...ventedPurgeCarbon(input, set, f, []).terms);
   // CO2 to air by balance = carbon in × factor − vented purge carbon − every export.
   balanceTerms.push(...exportTerms.map((t) => ({ ...t, value_t: t.value_t.neg() })));
   const balanceT = sum(balanceTerms.map((t) => t.value_t));

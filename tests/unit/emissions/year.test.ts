@@ -1,16 +1,17 @@
 import { describe, expect, it } from "vitest";
 import { computeEmissions, rollUpYear, type EmissionsInput } from "../../../lib/emissions/index";
-import { ammonia, d, gas, plant, stream } from "./fixtures";
+import { NG, ammonia, d, gas, plant, stream } from "./fixtures";
 
 const FC = { emissions: "fuel-calculation", factor_set: "ipcc-2006", gwp: "AR5" } as const;
 
 function month(m: string, feedT: string, nh3: string): { month: string; input: EmissionsInput; result: ReturnType<typeof computeEmissions> } {
-  const input = plant({ month: m, method: FC, ammonia_t: d(nh3),
+  // The analysis's calorific value is taken as exact here, to see meters and factors alone.
+  const input = plant({ month: m, method: FC, ammonia_t: d(nh3), analyses: { ng: { ...NG, cv_uncertainty_pct: d(0) } },
     streams: [gas("feed", "feed-gas", feedT, "2", { withCarbon: false }), ammonia(nh3)] });
   return { month: m, input, result: computeEmissions(input) };
 }
 
-describe("year roll-up: factor part correlated, meter part independent", () => {
+describe("year roll-up: factor part correlated, meter part repeating (no calibration date: one period)", () => {
   // March: 1 000 TJ → 56 100 t; April: 500 TJ → 28 050 t; meters ±2 %, factor ±3.6 % (IPCC Vol 2
   // Table 1.4 range, from memory), all expanded at 95 % (k = 1.96).
   const year = rollUpYear([month("2024-04", "10000", "20000"), month("2024-03", "20000", "46500")]);
@@ -27,13 +28,14 @@ describe("year roll-up: factor part correlated, meter part independent", () => {
   it("factor uncertainties add linearly across months (hand calculation)", () => {
     expect(year.uncertainty.co2.factor_u_std_t.toNumber()).toBeCloseTo(factorM[0] + factorM[1], 6); // 1 545.61
   });
-  it("meter uncertainties add in quadrature across months (hand calculation)", () => {
-    expect(year.uncertainty.co2.meter_u_std_t.toNumber()).toBeCloseTo(Math.hypot(meterM[0], meterM[1]), 6); // 640.02
+  it("a meter's error, all systematic by default and never recalibrated in between, adds linearly across months (hand calculation)", () => {
+    expect(year.uncertainty.co2.meter_u_std_t.toNumber()).toBeCloseTo(meterM[0] + meterM[1], 6); // 858.67
+    expect(year.uncertainty.co2.meter_random_u_std_t.isZero()).toBe(true);
   });
-  it("combined: U95 = 1.96 × √(1 545.61² + 640.02²) = 3 278.9 t, more than treating all as independent", () => {
-    const expected = k * Math.hypot(factorM[0] + factorM[1], Math.hypot(meterM[0], meterM[1]));
+  it("combined: U95 = 1.96 × √(1 545.61² + 858.67²) = 3 465.5 t, more than treating all as independent", () => {
+    const expected = k * Math.hypot(factorM[0] + factorM[1], meterM[0] + meterM[1]);
     expect(year.uncertainty.co2.u95_t.toNumber()).toBeCloseTo(expected, 6);
-    expect(expected).toBeCloseTo(3278.9, 1);
+    expect(expected).toBeCloseTo(3465.5, 1);
     const allIndependent = k * Math.hypot(...factorM, ...meterM);
     expect(year.uncertainty.co2.u95_t.toNumber()).toBeGreaterThan(allIndependent + 100);
   });

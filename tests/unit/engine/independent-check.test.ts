@@ -75,8 +75,13 @@ function byHand(m: Month, co2PerC: number) {
   const cOut = ((m.ureaT + m.ventT + m.stackT) * 1000) / M_CO2;
   const co2Of = (kmol: number) => ((kmol * g.cPerMol * AW.C) / 1000) * co2PerC;
   const co2 = co2Of(feedKmol) + co2Of(fuelKmol);
-  const uStd = Math.hypot((co2Of(feedKmol) * U.feed) / 100 / 1.96, (co2Of(fuelKmol) * U.fuel) / 100 / 1.96);
-  return { cIn, closure: ((cOut - cIn) / cIn) * 100, co2, nh3Kmol: (m.nh3T * 1000) / M_NH3, perT: co2 / m.nh3T, uStd };
+  // Standard uncertainties: each meter's, and the analysis's carbon content (no figure entered:
+  // the set's default 1 % at 95 %), one analysis behind both streams, so one part for both.
+  const feedU = (co2Of(feedKmol) * U.feed) / 100 / 1.96;
+  const fuelU = (co2Of(fuelKmol) * U.fuel) / 100 / 1.96;
+  const analysisU = (co2 * 1.0) / 100 / 1.96;
+  const uStd = Math.hypot(feedU, fuelU, analysisU);
+  return { cIn, closure: ((cOut - cIn) / cIn) * 100, co2, nh3Kmol: (m.nh3T * 1000) / M_NH3, perT: co2 / m.nh3T, uStd, feedU, fuelU, analysisU };
 }
 
 const engine = (text: string, args: string[]) => {
@@ -104,7 +109,7 @@ describe("independent check, one month at Harrow Point (IPCC 2006, 44/12)", () =
     agree(out.emissions.co2_t, mine.co2, "CO2, t");
     agree(out.intensity.co2_t_per_t_nh3, mine.perT, "t CO2/t NH3");
   });
-  it("the month's CO2 uncertainty at 95 %: meters independent, 1.96 × √Σ(CO2ᵢ × uᵢ)²", () => {
+  it("the month's CO2 uncertainty at 95 %: meters independent, the analysis one part, 1.96 × √(Σ(CO2ᵢ × uᵢ)² + (CO2 × u_C)²)", () => {
     agree(out.uncertainty.co2.u95_t, 1.96 * mine.uStd, "U95 CO2, t");
   });
 });
@@ -141,8 +146,9 @@ describe("independent check, a partial year at Harrow Point (January–March 202
     // direct CO2e minus CO2 is CH4 + N2O, outside the EU set's scope for ammonia: zero here
     agree(year.intensity.co2e_t_per_t_nh3, sum((x) => x.co2) / nh3, "annual t CO2/t NH3");
   });
-  it("the year's uncertainty: no factor part (3.664 is exact), meter parts added in quadrature across months", () => {
+  it("the year's uncertainty: no factor part (3.664 is exact), each meter's (all systematic, one period) added linearly across months, each month's analysis in quadrature", () => {
     expect(year.uncertainty.co2.factor_u_std_t).toBe("0");
-    agree(year.uncertainty.co2.u95_t, 1.96 * Math.sqrt(sum((x) => x.uStd ** 2)), "annual U95 CO2");
+    const u2 = sum((x) => x.feedU) ** 2 + sum((x) => x.fuelU) ** 2 + sum((x) => x.analysisU ** 2);
+    agree(year.uncertainty.co2.u95_t, 1.96 * Math.sqrt(u2), "annual U95 CO2");
   });
 });

@@ -46,6 +46,8 @@ export default async function EditStreamPage({ params }: { params: Promise<{ sit
           destination: (s.destination ?? "") as never,
           fate: (s.fate ?? "") as never,
           uncertaintyPct: s.uncertaintyPct ?? "",
+          metered: s.metered,
+          systematicPct: s.systematicPct ?? "",
           indirectFactor: s.indirectFactor ?? "",
           meterTag: s.meterTag ?? "",
           calibratedOn: s.calibratedOn ?? "",
