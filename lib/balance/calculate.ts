@@ -56,10 +56,40 @@ function reconcileOrExplain(flows: StreamFlow[], confidence: Dec): PlantReconcil
     return reconcilePlant(flows, confidence);
   } catch (e) {
     if (e instanceof Error && e.message === "singular matrix") {
-      throw new CalculationInputError("streams", "the quantities and uncertainties span too many orders of magnitude to reconcile the balances; check the figures for a misplaced unit or extra digits");
+      const i = farthestOrder(flows);
+      throw new CalculationInputError(
+        i === null ? "streams" : `streams[${i}].quantity`,
+        i === null
+          ? "the quantities and uncertainties span too many orders of magnitude to reconcile the balances; check the figures for a misplaced unit or extra digits"
+          : `stream ${flows[i].stream.id}: ${flows[i].stream.quantity.toString()} ${flows[i].stream.unit} lies orders of magnitude away from the other streams, so the balances cannot be reconciled; check it for a misplaced unit or extra digits`,
+      );
     }
     throw e;
   }
+}
+
+/**
+ * Less feed than the stoichiometric minimum cannot make the ammonia reported: a feed efficiency
+ * above 100 % means a feed meter reading low, an analysis too lean or ammonia reading high.
+ */
+function feedFlags(feed: CalculationResult["feed"]): Flag[] {
+  const e = feed.feed_efficiency_pct;
+  if (e === null || e.toDecimalPlaces(6).lte(100)) return [];
+  return [{ code: "feed-below-theoretical-minimum", severity: "warning",
+    message: `feed efficiency ${e.toDecimalPlaces(2).toFixed(2)} %: less feed energy than the theoretical minimum for the ammonia reported; check the feed meter, its analysis and the ammonia meter` }];
+}
+
+/** The stream whose amount (kmol) lies most orders of magnitude from the median of the others; null when none is given. */
+function farthestOrder(flows: StreamFlow[]): number | null {
+  const orders = flows.map((f) => (f.figures.kmol && f.figures.kmol.gt(0) ? f.figures.kmol.e : f.stream.quantity.gt(0) ? f.stream.quantity.e : null));
+  const known = orders.filter((o): o is number => o !== null).sort((a, b) => a - b);
+  if (known.length < 2) return null;
+  const median = known[Math.floor(known.length / 2)];
+  let best: number | null = null;
+  orders.forEach((o, i) => {
+    if (o !== null && (best === null || Math.abs(o - median) > Math.abs(orders[best]! - median))) best = i;
+  });
+  return best;
 }
 
 export function analysisFigures(id: string, gas: GasProperties): AnalysisResult {
@@ -111,7 +141,7 @@ export function calculate(doc: PlantMonth, options: CalculateOptions = {}): Calc
   return {
     ...partial,
     emissions,
-    flags: [...analysisFlags, ...balanceFlags(flows, balances, options), ...(reconciliation?.flags ?? []), ...emissions.flags],
+    flags: [...analysisFlags, ...balanceFlags(flows, balances, options), ...feedFlags(feed), ...(reconciliation?.flags ?? []), ...emissions.flags],
     tolerancePct: options.closureTolerancePct ?? dec(2),
   };
 }

@@ -34,7 +34,8 @@ export const MAX_JSON_DEPTH = 256;
 
 /** Parses JSON text; numbers become JsonNumber (literal kept), everything else as JSON.parse. */
 export function readJson(text: string): JsonValue {
-  let i = 0;
+  // A UTF-8 byte-order mark some editors write: RFC 8259 §8.1 lets a parser ignore it.
+  let i = text.charCodeAt(0) === 0xfeff ? 1 : 0;
 
   const fail = (reason: string, at = i): never => {
     const before = text.slice(0, at).split("\n");
@@ -43,7 +44,14 @@ export function readJson(text: string): JsonValue {
   const skip = () => {
     while (i < text.length && " \t\n\r".includes(text[i])) i++;
   };
-  const describe = () => (i >= text.length ? "end of input" : `'${text[i]}'`);
+  // A character that prints as nothing (or as another) is named by its code point.
+  const describe = () => {
+    if (i >= text.length) return "end of input";
+    const cp = text.codePointAt(i)!;
+    return cp < 0x20 || (cp >= 0x7f && cp <= 0xa0) || cp === 0xfeff || (cp >= 0x2000 && cp <= 0x206f) || cp > 0xffff
+      ? `U+${cp.toString(16).toUpperCase().padStart(4, "0")}`
+      : `'${text[i]}'`;
+  };
 
   const readString = (): string => {
     const start = i;
