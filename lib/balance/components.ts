@@ -18,63 +18,62 @@ export const ATOMIC_WEIGHT = {
   He: dec("4.0026"),
 } as const;
 
+/** The four reference temperatures the engine works at: 0 °C, 15 °C, 60 °F (15.55 °C in the tables) and 68 °F (20 °C). */
+export type TableTemperature = "0C" | "15C" | "60F" | "68F";
+type AtRefs = Record<TableTemperature, Dec>;
+
 export interface ComponentData {
   atoms: { C: number; H: number; N: number; O: number; Ar: number; He: number };
-  /** Ideal molar gross calorific value at 15 °C combustion reference, kJ/mol (= MJ/kmol). */
-  gross15: Dec;
-  /** Ideal-gas Cp near 25 °C, J/(mol K); used only to move gross CV from 15 °C to 0 °C and 60 °F. */
-  cp: Dec;
-  /** ISO 6976:2016 summation factors at 0 °C and 15 °C metering reference, 101.325 kPa. */
-  s0: Dec;
-  s15: Dec;
+  /** Ideal molar gross (superior) calorific value at each combustion reference, kJ/mol (= MJ/kmol). */
+  gross: AtRefs;
+  /** Summation factor s at each metering reference, 101.325 kPa (Z = 1 − (Σ xᵢ sᵢ)²). */
+  s: AtRefs;
   source: string;
 }
 
 const a = (C: number, H: number, N = 0, O = 0, Ar = 0, He = 0) => ({ C, H, N, O, Ar, He });
-const row = (atoms: ComponentData["atoms"], gross15: string, cp: string, s0: string, s15: string, source: string) =>
-  ({ atoms, gross15: dec(gross15), cp: dec(cp), s0: dec(s0), s15: dec(s15), source }) satisfies ComponentData;
+const at = (v: [string, string, string, string]): AtRefs => ({ "0C": dec(v[0]), "15C": dec(v[1]), "60F": dec(v[2]), "68F": dec(v[3]) });
+const ZERO4: [string, string, string, string] = ["0", "0", "0", "0"];
+const row = (atoms: ComponentData["atoms"], gross: [string, string, string, string], s: [string, string, string, string]) =>
+  ({ atoms, gross: at(gross), s: at(s), source: TABLES }) satisfies ComponentData;
 
-// gross15: ISO 6976:2016 Table 3. Methane 891.51 is C* (REFERENCE-VALUES); the others are
-// from memory. s15: C* for CH4 C2H6 C3H8 N2 CO2 (REFERENCE-VALUES); all s0 and the other
-// s15 values are from memory (their effect on Z is below 0.01 % for pipeline gas).
-// cp: NIST WebBook ideal-gas values near 298 K, from memory (the 15→0 °C shift they drive
-// is ~1.4 kJ/mol for methane, so a 3 % Cp error moves gross CV by < 0.005 %).
+/**
+ * ISO 6976:2016 Table A.3 (summation factors at 0, 15, 15.55 and 20 °C) and Table A.4 (ideal
+ * gross calorific values at the same temperatures), as reproduced in an open clean-room
+ * implementation of the standard checked against its Annex D examples (RuedigerForster/ISO_6976,
+ * src/iso6976.cpp, read 2026-12); methane 891.51 kJ/mol and the 15 °C factors of CH4, C2H6,
+ * C3H8, N2 and CO2 also agree with a second transcription. The standard's own text was not read:
+ * unconfirmed. 60 °F (15.56 °C) takes the 15.55 °C column; 68 °F is 20 °C.
+ */
+export const TABLES = "ISO 6976:2016 Tables A.3 and A.4, as reproduced in an open implementation (unconfirmed)";
+
 export const COMPONENT_DATA: Record<Component, ComponentData> = {
-  CH4: row(a(1, 4), "891.51", "35.69", "0.04886", "0.04452", "gross C*; s15 C*; s0 from memory"),
-  C2H6: row(a(2, 6), "1562.14", "52.49", "0.1010", "0.0919", "gross from memory; s15 C*"),
-  C3H8: row(a(3, 8), "2221.10", "73.60", "0.1478", "0.1344", "gross from memory; s15 C*"),
-  iC4H10: row(a(4, 10), "2870.58", "96.82", "0.1930", "0.1753", "from memory"),
-  nC4H10: row(a(4, 10), "2879.76", "98.49", "0.2025", "0.1840", "from memory"),
-  iC5H12: row(a(5, 12), "3531.68", "118.87", "0.2410", "0.2191", "from memory"),
-  nC5H12: row(a(5, 12), "3538.60", "120.04", "0.2600", "0.2361", "from memory"),
-  nC6H14: row(a(6, 14), "4198.24", "143.09", "0.3180", "0.2890", "from memory"),
-  N2: row(a(0, 0, 2), "0", "29.12", "0.0212", "0.0170", "inert; s15 C*"),
-  CO2: row(a(1, 0, 0, 2), "0", "37.12", "0.0820", "0.0752", "inert; s15 C*"),
-  H2: row(a(0, 2), "286.15", "28.84", "-0.0040", "-0.0048", "from memory (negative s as in ISO 6976)"),
-  O2: row(a(0, 0, 0, 2), "0", "29.38", "0.0316", "0.0283", "from memory"),
-  Ar: row(a(0, 0, 0, 0, 1), "0", "20.79", "0.0307", "0.0276", "from memory"),
-  He: row(a(0, 0, 0, 0, 0, 1), "0", "20.79", "0", "0", "from memory (taken as 0)"),
+  CH4: row(a(1, 4), ["892.92", "891.51", "891.46", "891.05"], ["0.04886", "0.04452", "0.04437", "0.04317"]),
+  C2H6: row(a(2, 6), ["1564.35", "1562.14", "1562.06", "1561.42"], ["0.0997", "0.0919", "0.0916", "0.0895"]),
+  C3H8: row(a(3, 8), ["2224.03", "2221.10", "2220.99", "2220.13"], ["0.1465", "0.1344", "0.1340", "0.1308"]),
+  iC4H10: row(a(4, 10), ["2874.21", "2870.58", "2870.45", "2869.39"], ["0.1885", "0.1722", "0.1717", "0.1673"]),
+  nC4H10: row(a(4, 10), ["2883.35", "2879.76", "2879.63", "2878.58"], ["0.2022", "0.1840", "0.1834", "0.1785"]),
+  iC5H12: row(a(5, 12), ["3536.01", "3531.68", "3531.52", "3530.25"], ["0.2458", "0.2251", "0.2244", "0.2189"]),
+  nC5H12: row(a(5, 12), ["3542.91", "3538.60", "3538.45", "3537.19"], ["0.2586", "0.2361", "0.2354", "0.2295"]),
+  nC6H14: row(a(6, 14), ["4203.24", "4198.24", "4198.06", "4196.60"], ["0.3319", "0.3001", "0.2990", "0.2907"]),
+  N2: row(a(0, 0, 2), ZERO4, ["0.0214", "0.0170", "0.0169", "0.0156"]),
+  CO2: row(a(1, 0, 0, 2), ZERO4, ["0.0821", "0.0752", "0.0749", "0.0730"]),
+  H2: row(a(0, 2), ["286.64", "286.15", "286.13", "285.99"], ["-0.01", "-0.01", "-0.01", "-0.01"]),
+  O2: row(a(0, 0, 0, 2), ZERO4, ["0.0311", "0.0276", "0.0275", "0.0265"]),
+  Ar: row(a(0, 0, 0, 0, 1), ZERO4, ["0.0307", "0.0273", "0.0272", "0.0262"]),
+  He: row(a(0, 0, 0, 0, 0, 1), ZERO4, ["-0.01", "-0.01", "-0.01", "-0.01"]),
   // Analyses are dry by the format, so water vapour is treated as non-combustible here.
-  H2O: row(a(0, 2, 0, 1), "0", "33.58", "0.3081", "0.2560", "from memory"),
-  CO: row(a(1, 0, 0, 1), "282.91", "29.14", "0.0224", "0.0200", "from memory"),
-  NH3: row(a(0, 3, 1), "383.51", "35.06", "0.1100", "0.1000", "from memory"),
-};
-
-/** Heat capacities of combustion products and oxygen, J/(mol K), NIST WebBook near 298 K, from memory. */
-export const CP_PRODUCTS = {
-  CO2: dec("37.12"),
-  H2O_liquid: dec("75.33"),
-  O2: dec("29.38"),
-  N2: dec("29.12"),
+  H2O: row(a(0, 2, 0, 1), ZERO4, ["0.3093", "0.2562", "0.2546", "0.2419"]),
+  CO: row(a(1, 0, 0, 1), ["282.80", "282.91", "282.91", "282.95"], ["0.0258", "0.0217", "0.0215", "0.0203"]),
+  NH3: row(a(0, 3, 1), ["384.57", "383.51", "383.47", "383.16"], ["0.1230", "0.1100", "0.1096", "0.1062"]),
 };
 
 /**
- * Enthalpy of vaporisation of water at 15 °C, kJ/mol: (891.51 − 802.69) / 2 from the ISO
- * 6976:2016 methane row (Calc). Net = gross − (H atoms / 2) × L, as ISO 6976 defines it.
- * L moves with temperature by Cp(liquid) − Cp(gas) = 75.33 − 33.58 J/(mol K).
+ * Standard enthalpy of vaporisation of water L0(t), kJ/mol (the water row of Table A.4, same
+ * reproduction; 44.431 at 15 °C also in a second one). Net = gross − (H atoms / 2) × L0, as
+ * ISO 6976 defines it.
  */
-export const WATER_L15 = dec("44.41");
-export const WATER_DCP = dec("41.75");
+export const WATER_L0: AtRefs = at(["45.064", "44.431", "44.408", "44.222"]);
 
 function workMolarMass(c: Component): Dec {
   const { atoms } = COMPONENT_DATA[c];

@@ -2,7 +2,7 @@
 // summed over components, compressibility Z = 1 − (Σ xᵢ sᵢ)², real volumetric values =
 // ideal molar value / (Z·R·T/p). All in Decimal.
 import {
-  COMPONENTS, COMPONENT_DATA, CP_PRODUCTS, WATER_DCP, WATER_L15,
+  COMPONENTS, COMPONENT_DATA, WATER_L0,
   type Component, h2EquivalentsOf, molarMassOf, ATOMIC_WEIGHT,
 } from "./components";
 import { Dec, ONE, ZERO, HUNDRED, dec, sum } from "./decimal";
@@ -94,10 +94,7 @@ function memoGas<T>(gas: GasProperties, key: string, work: () => T): T {
 
 /** Summation factor at a metering reference; 60/68 °F extrapolated linearly from the 0 and 15 °C values. */
 export function summationFactor(c: Component, ref: Reference): Dec {
-  const { s0, s15 } = COMPONENT_DATA[c];
-  if (ref === "0C") return s0;
-  if (ref === "15C") return s15;
-  return memo("s", c, ref, () => s15.plus(s15.minus(s0).div(15).times(REFERENCES[ref].tC.minus(15))));
+  return COMPONENT_DATA[c].s[ref];
 }
 
 export function compressibility(gas: GasProperties, ref: Reference): Dec {
@@ -123,21 +120,9 @@ export function realMolarVolume(gas: GasProperties, ref: Reference): Dec {
   return compressibility(gas, ref).times(idealMolarVolume(ref));
 }
 
-/** Component ideal molar gross CV at a combustion reference, kJ/mol, shifted from 15 °C by ΔCp of combustion. */
+/** Component ideal molar gross CV at a combustion reference, kJ/mol (ISO 6976:2016 Table A.4). */
 export function componentGross(c: Component, ref: Reference): Dec {
-  return memo("gross", c, ref, () => workComponentGross(c, ref));
-}
-function workComponentGross(c: Component, ref: Reference): Dec {
-  const d = COMPONENT_DATA[c];
-  if (d.gross15.isZero()) return ZERO;
-  const { C, H, N, O } = d.atoms;
-  const o2 = new Dec(C).plus(new Dec(H).div(4)).minus(new Dec(O).div(2));
-  const dCp = CP_PRODUCTS.CO2.times(C)
-    .plus(CP_PRODUCTS.H2O_liquid.times(H).div(2))
-    .plus(CP_PRODUCTS.N2.times(N).div(2))
-    .minus(d.cp)
-    .minus(CP_PRODUCTS.O2.times(o2));
-  return d.gross15.plus(dCp.times(dec("15").minus(REFERENCES[ref].tC)).div(1000));
+  return COMPONENT_DATA[c].gross[ref];
 }
 
 /** Component ideal molar net CV: gross − (H/2)·L(t), kJ/mol. */
@@ -147,7 +132,7 @@ export function componentNet(c: Component, ref: Reference): Dec {
 function workComponentNet(c: Component, ref: Reference): Dec {
   const gross = componentGross(c, ref);
   if (gross.isZero()) return ZERO;
-  const L = WATER_L15.plus(WATER_DCP.times(dec("15").minus(REFERENCES[ref].tC)).div(1000));
+  const L = WATER_L0[ref];
   return gross.minus(L.times(COMPONENT_DATA[c].atoms.H).div(2));
 }
 

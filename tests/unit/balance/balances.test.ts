@@ -34,12 +34,12 @@ describe("pure-methane plant built on paper to close (fixtures.ts derivation)", 
     near(bal.hydrogen.closure_pct, "0");
   });
   it("H2:N2 ratio 3", () => near(bal.h2n2Ratio, "3"));
-  it("theoretical minimum feed = the plant's own feed: efficiency 100 %, 20.8352 GJ/t (hand calc 0.44206880 × 802.69 / 17.031)", () => {
+  it("theoretical minimum feed = the plant's own feed: efficiency 100 %, 20.8341 GJ/t (hand calc 0.44206880 × 802.648 / 17.031; ISO 6976:2016 methane net at 15 °C)", () => {
     const f = feedFigures(flowsOf(doc));
     near(f.feed_efficiency_pct, "100", "1e-25");
-    near(f.theoretical_min_gj_lhv_per_t_nh3, "20.835194834704657854", "1e-15");
-    // (69 037 + 10 000) kmol × 802.69 MJ/kmol / 2659.697208 t (hand calc)
-    near(f.gj_lhv_per_t_nh3, "23.853169954525139314", "1e-15");
+    near(f.theoretical_min_gj_lhv_per_t_nh3, "20.834104652712783537", "1e-15");
+    // (69 037 + 10 000) kmol × 802.648 MJ/kmol / 2659.697208 t (hand calc)
+    near(f.gj_lhv_per_t_nh3, "23.851921859820969515", "1e-15");
   });
   it("a 3 % high feed meter shows as carbon −(0.03·69037/79037·…) — carbon and hydrogen open, nitrogen unchanged", () => {
     const high = docOf(variant((d) => (d.streams[0].quantity = "1140.78740873"))); // 1107.560591 × 1.03
@@ -54,7 +54,7 @@ describe("pure-methane plant built on paper to close (fixtures.ts derivation)", 
 
 describe("theoretical minimum feed", () => {
   it("pure methane with dry air: 0.44207 kmol/kmol NH3, 20.84 GJ/t (derivation in feed.ts; common practice ~20.9, from memory)", () => {
-    const m = minimumFeed({ n2: dec(0), h2eq: dec(4), ncv: dec("802.69") }, { n2: DRY_AIR.n2PerMol, h2eq: DRY_AIR.h2EquivalentsPerMol })!;
+    const m = minimumFeed({ n2: dec(0), h2eq: dec(4), ncv: dec("802.648") }, { n2: DRY_AIR.n2PerMol, h2eq: DRY_AIR.h2EquivalentsPerMol })!;
     near(m.feed_kmol_per_kmol_nh3, "0.44206879770503560268", "1e-18");
     near(m.gj_lhv_per_t_nh3, "20.9", "0.1");
     near(m.air_kmol_per_kmol_nh3, dec("0.5").div("0.78084").toFixed(), "1e-30");

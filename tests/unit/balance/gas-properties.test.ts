@@ -27,38 +27,40 @@ describe("molar masses from CIAAW 2021 conventional atomic weights", () => {
 
 describe("ISO 6976:2016 methane at 15 °C (REFERENCE-VALUES, C*)", () => {
   const cv = calorificValues(methane, "15C");
-  it("ideal molar gross 891.51 and net 802.69 kJ/mol", () => {
+  // Net = gross − 2 × L0(15 °C) = 891.51 − 2 × 44.431 = 802.648 (ISO 6976:2016 Eq. (3) with its
+  // L0; tests/unit/balance/iso6976-table.test.ts). REFERENCE-VALUES' "802.69" is the 1995
+  // edition's pair (891.56 − 2 × 44.433), not the 2016 table's.
+  it("ideal molar gross 891.51 and net 802.648 kJ/mol", () => {
     expect(cv.grossMolar.toFixed()).toBe("891.51");
-    near(cv.netMolar, "802.69", "1e-9");
+    near(cv.netMolar, "802.648", "1e-9");
   });
   it("Z = 1 − 0.04452² = 0.99802 (ISO 6976:2016, C*)", () => near(cv.z, "0.99802", "5e-6"));
-  // REFERENCE-VALUES lists net 50.04 MJ/kg; 802.69 / 16.043 = 50.0337 by hand, so that row looks like a rounding slip.
-  it("real gas 37.78 / 34.02 MJ/m3 (REFERENCE-VALUES, Calc) and 55.570 / 50.034 MJ/kg (hand calc)", () => {
+  it("real gas 37.78 MJ/m3 gross (REFERENCE-VALUES, Calc); net 802.648 / (0.99802 × 23.64483) = 34.0134 MJ/m3 and 802.648 / 16.043 = 50.0310 MJ/kg (hand calc)", () => {
     near(cv.grossVolumeReal, "37.78", "0.005");
-    near(cv.netVolumeReal, "34.02", "0.005");
+    near(cv.netVolumeReal, "34.013441", "0.000001");
     near(cv.grossMass, "55.57", "0.005");
-    near(cv.netMass, "50.0337", "0.0001");
+    near(cv.netMass, "50.031042", "0.000001");
   });
-  it("0 °C and 60 °F values shifted by ΔCp: 892.9 and 891.46 kJ/mol (ISO 6976:2016 table values, from memory)", () => {
-    near(componentGross("CH4", "0C"), "892.92", "0.03");
-    near(componentGross("CH4", "60F"), "891.46", "0.01");
-    near(componentNet("CH4", "0C"), "802.82", "0.05");
+  it("0 °C and 60 °F values are the table's: 892.92 and 891.46 kJ/mol gross; net at 0 °C 892.92 − 2 × 45.064 = 802.792", () => {
+    expect(componentGross("CH4", "0C").toString()).toBe("892.92");
+    expect(componentGross("CH4", "60F").toString()).toBe("891.46");
+    expect(componentNet("CH4", "0C").toString()).toBe("802.792");
   });
 });
 
 describe("multi-component gas against the ISO 6976 method, hand calc from the table", () => {
   // CH4 90, C2H6 5, C3H8 2, N2 2, CO2 1 mol %. Gross: 0.9·891.51 + 0.05·1562.14 + 0.02·2221.10
-  // = 924.888 kJ/mol (ISO 6976:2016 Table 3, ethane/propane from memory). Net: minus (h/2)·44.41.
+  // = 924.888 kJ/mol (ISO 6976:2016 Table A.4). Net: minus (h/2)·L0 = 2.03 × 44.431 → 834.69307.
   // Σxs = 0.048443 (summation factors from REFERENCE-VALUES) → Z = 0.997653275751.
   // Real gross per m3 = 924.888 / (Z · 23.6448300358) = 39.2078759348 MJ/m3 (hand calc).
   const gas = gasProperties(compositionOf({ CH4: "90", C2H6: "5", C3H8: "2", N2: "2", CO2: "1" }));
   const cv = calorificValues(gas, "15C");
   it("molar gross, net, Z, volumetric and mass values", () => {
     near(cv.grossMolar, "924.888", "1e-9");
-    near(cv.netMolar, "834.7357", "1e-9");
+    near(cv.netMolar, "834.69307", "1e-9");
     near(cv.z, "0.997653275751", "1e-12");
     near(cv.grossVolumeReal, "39.2078759348", "1e-9");
-    near(cv.netVolumeReal, "35.3861373095", "1e-9");
+    near(cv.netVolumeReal, "35.3843301375", "1e-9");
     near(gas.molarMass, "17.82451", "1e-12");
     near(cv.grossMass, "51.8885512140", "1e-9");
   });
@@ -87,7 +89,7 @@ describe("molar volumes and references", () => {
     near(REFERENCES["60F"].T, "288.705556", "1e-6");
     near(REFERENCES["60F"].p, "101325.353", "0.001");
   });
-  it("real molar volume = Z · RT/p; 60 °F summation factor extrapolates 0→15 °C (ISO 6976:2016 lists 0.04437, from memory)", () => {
+  it("real molar volume = Z · RT/p; 60 °F takes the table's 15.55 °C summation factor 0.04437", () => {
     expect(realMolarVolume(methane, "15C").eq(idealMolarVolume("15C").times(compressibility(methane, "15C")))).toBe(true);
     near(summationFactor("CH4", "60F"), "0.04437", "0.00002");
   });

@@ -44,11 +44,11 @@ describe("EmissionsInput and the emissions part", () => {
     const part = emissionsPart(input);
     // 949.313407 t C × 11/3 = 3 480.815825667 t
     expect(part.emissions.co2_t.toDecimalPlaces(9).toFixed()).toBe("3480.815825667");
-    // fuel 10 000 kmol × 802.69 MJ/kmol (ISO 6976:2016 methane net, 15 °C) = 8.0269 TJ × 1 kg CH4 and 0.1 kg N2O per TJ (IPCC Vol 2 Tables 2.2/2.3, from memory)
-    expect(part.emissions.ch4_t.toFixed()).toBe("0.0080269");
-    expect(part.emissions.n2o_t.toFixed()).toBe("0.00080269");
-    // urea CO2 is deducted under IPCC 2006 (R in Eq 3.1, from memory): 3 481.253291717 − 3 038.249333
-    expect(part.emissions.net_co2e_t.toDecimalPlaces(9).toFixed()).toBe("443.003958717");
+    // fuel 10 000 kmol × 802.648 MJ/kmol (ISO 6976:2016 methane net, 15 °C) = 8.02648 TJ × 1 kg CH4 and 0.1 kg N2O per TJ (IPCC Vol 2 Tables 2.2/2.3, unconfirmed)
+    expect(part.emissions.ch4_t.toFixed()).toBe("0.00802648");
+    expect(part.emissions.n2o_t.toFixed()).toBe("0.000802648");
+    // urea CO2 is deducted under IPCC 2006 (R in Eq 3.1, unconfirmed): 3 481.253268827 − 3 038.249333
+    expect(part.emissions.net_co2e_t.toDecimalPlaces(9).toFixed()).toBe("443.003935827");
     expect(part.flags.some((f) => f.code === "emissions-not-computed")).toBe(false);
   });
   it("an unknown factor set is an input error on method.factor_set", () => {
@@ -61,9 +61,9 @@ describe("result document synledger.result/1", () => {
   it("numbers are strings, keys as the format lists", () => {
     expect(out.balances.hydrogen.available_kmol).toBe("234252");
     expect(out.streams[0].kmol).toBe("69037");
-    expect(out.intensity.gj_lhv_per_t_nh3).toBe("23.8531699545251");
-    // 3 480.815825667 + 0.0080269 × 28 + 0.00080269 × 265 (AR5 GWP, hand calc)
-    expect(out.emissions.co2e_t).toBe("3481.25329171667");
+    expect(out.intensity.gj_lhv_per_t_nh3).toBe("23.851921859821");
+    // 3 480.815825667 + 0.00802648 × 28 + 0.000802648 × 265 (AR5 GWP, hand calc)
+    expect(out.emissions.co2e_t).toBe("3481.25326882667");
     expect(out.reconciliation!.passed).toBe(true);
   });
   it("num: 15 significant digits, no exponent, dust as 0", () => {

@@ -8,21 +8,20 @@
 //  - R = 8.314462618 J/(mol K): CODATA 2018 (exact in the 2019 SI)
 //  - scf at 60 °F and 14.696 psia (plant-month format); 1 ft = 0.3048 m, 1 lbf/in² from
 //    0.45359237 kg × 9.80665 m/s² / (0.0254 m)² (exact by definition)
-//  - Z = 1 − (Σ xᵢ sᵢ)², summation factors at 15 °C (ISO 6976:2016, C* in REFERENCE-VALUES) and at
-//    0 °C (ISO 6976:2016, from memory); 60 °F by linear interpolation in temperature (common
-//    practice, no source)
+//  - Z = 1 − (Σ xᵢ sᵢ)², summation factors at 15.55 °C (60 °F) from ISO 6976:2016 Table A.3 as
+//    reproduced in an open implementation (RuedigerForster/ISO_6976, src/iso6976.cpp; unconfirmed)
 //  - 44/12 (IPCC 2006 Vol 3 Eq 3.1, from memory) and 3.664 (EU MRR Art 25)
 //  - expanded uncertainties at 95 % with k = 1.96 (GUM, common practice)
 import { describe, expect, it } from "vitest";
 import { runCli } from "../../../lib/balance/cli";
 
 const AW = { H: 1.008, C: 12.011, N: 14.007, O: 15.999 };
-const GAS_DATA: Record<string, { atoms: [number, number, number, number]; s0: number; s15: number }> = {
-  CH4: { atoms: [1, 4, 0, 0], s0: 0.04886, s15: 0.04452 },
-  C2H6: { atoms: [2, 6, 0, 0], s0: 0.101, s15: 0.0919 },
-  C3H8: { atoms: [3, 8, 0, 0], s0: 0.1478, s15: 0.1344 },
-  N2: { atoms: [0, 0, 2, 0], s0: 0.0212, s15: 0.017 },
-  CO2: { atoms: [1, 0, 0, 2], s0: 0.082, s15: 0.0752 },
+const GAS_DATA: Record<string, { atoms: [number, number, number, number]; s60: number }> = {
+  CH4: { atoms: [1, 4, 0, 0], s60: 0.04437 },
+  C2H6: { atoms: [2, 6, 0, 0], s60: 0.0916 },
+  C3H8: { atoms: [3, 8, 0, 0], s60: 0.134 },
+  N2: { atoms: [0, 0, 2, 0], s60: 0.0169 },
+  CO2: { atoms: [1, 0, 0, 2], s60: 0.0749 },
 };
 const molar = ([c, h, n, o]: number[]) => c * AW.C + h * AW.H + n * AW.N + o * AW.O;
 const M_CO2 = molar([1, 0, 0, 2]);
@@ -34,7 +33,7 @@ function gas(pct: Pct) {
   const M = x.reduce((a, [k, f]) => a + f * molar(GAS_DATA[k].atoms), 0);
   const cPerMol = x.reduce((a, [k, f]) => a + f * GAS_DATA[k].atoms[0], 0);
   const t60 = ((60 - 32) * 5) / 9;
-  const s = x.reduce((a, [k, f]) => a + f * (GAS_DATA[k].s15 + ((GAS_DATA[k].s15 - GAS_DATA[k].s0) / 15) * (t60 - 15)), 0);
+  const s = x.reduce((a, [k, f]) => a + f * GAS_DATA[k].s60, 0);
   const Z = 1 - s * s;
   const p = (14.696 * 0.45359237 * 9.80665) / 0.0254 ** 2;
   const vmScf = (Z * 8.314462618 * (t60 + 273.15)) / p / 0.3048 ** 3 * 1000; // scf per kmol, real gas

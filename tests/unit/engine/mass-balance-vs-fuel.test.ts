@@ -90,12 +90,12 @@ describe("carbon mass balance and fuel calculation agree where both apply", () =
   });
   it("the fuel calculation with a default factor per TJ NCV equals the mass balance when the factor fits the gas", () => {
     // A site set whose natural-gas factor is a number, not the analysis: pure methane,
-    // 12.011 kg C per kmol × 44/12 ÷ 802.69 MJ/kmol (ISO 6976:2016 net CV at 15 °C, C*) = 54 866.… kg CO2/TJ.
-    const factor = W.C.times(44).div(12).div("802.69").times(1e6);
+    // 12.011 kg C per kmol × 44/12 ÷ 802.648 MJ/kmol (ISO 6976:2016 net CV at 15 °C: 891.51 − 2 × 44.431) = 54 869.… kg CO2/TJ.
+    const factor = W.C.times(44).div(12).div("802.648").times(1e6);
     const registry = new FactorSetRegistry([{
       ...IPCC_2006, id: "site-methane", name: "test set: fixed methane factor",
       fuels: { ...IPCC_2006.fuels, "natural-gas": { ...IPCC_2006.fuels["natural-gas"], co2_from_analysis: false,
-        co2: { value: factor.toFixed(25), unit: "kg CO2/TJ NCV", source: "calculated here from CIAAW 12.011 and ISO 6976:2016 methane 802.69 kJ/mol", status: "confirmed", checked: "computed in this test" } } },
+        co2: { value: factor.toFixed(25), unit: "kg CO2/TJ NCV", source: "calculated here from CIAAW 12.011 and ISO 6976:2016 methane 802.648 kJ/mol", status: "confirmed", checked: "computed in this test" } } },
     }]);
     const doc = plant("fuel-calculation", "site-methane");
     doc.analyses.gas = { components: { CH4: new D(100) } } as typeof doc.analyses.gas;
