@@ -117,6 +117,7 @@ function tierOf(doc: ResultDocument, streamId: string): string {
 const DESTINATION_LABELS: Record<string, string> = {
   urea: "the urea plant",
   storage: "capture and geological storage",
+  pcc: "precipitated calcium carbonate (chemically bound)",
   sale: "sale to a third party",
   other: "another destination",
 };

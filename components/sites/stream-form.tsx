@@ -128,7 +128,7 @@ export function StreamForm({ siteId, streamId, defaults, analysisKeys }: { siteI
               <option value="">Choose…</option>
               {DESTINATIONS.map((d) => (
                 <option key={d} value={d}>
-                  {d}
+                  {d === "pcc" ? "precipitated calcium carbonate (pcc)" : d}
                 </option>
               ))}
             </select>

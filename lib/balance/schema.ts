@@ -152,7 +152,7 @@ export const plantMonthSchema = z
       const needsAnalysis = s.kind === "feed-gas" || s.kind === "fuel-gas" || s.kind === "purge-gas";
       if (needsAnalysis && s.analysis === undefined) at("analysis", `a ${s.kind} stream needs an analysis`);
       if (s.kind === "purge-gas" && s.fate === undefined) at("fate", "a purge-gas stream needs a fate (fuel, flare or vent)");
-      if (s.kind === "co2-export" && s.destination === undefined) at("destination", "a co2-export stream needs a destination (urea, storage, sale or other)");
+      if (s.kind === "co2-export" && s.destination === undefined) at("destination", "a co2-export stream needs a destination (urea, storage, pcc, sale or other)");
       if (s.fate !== undefined && s.kind !== "purge-gas") at("fate", "only purge-gas streams have a fate");
       if (s.destination !== undefined && s.kind !== "co2-export") at("destination", "only co2-export streams have a destination");
       if (s.quantity === undefined && s.metered !== false) at("quantity", "is required (only a stream declared \"metered\": false may leave it out)");

@@ -9,7 +9,8 @@ export const STREAM_KINDS = [
 ] as const;
 export type StreamKind = (typeof STREAM_KINDS)[number];
 
-export const DESTINATIONS = ["urea", "storage", "sale", "other"] as const;
+/** Where exported CO2 goes; "pcc": used to make precipitated calcium carbonate, the CO2 chemically bound. */
+export const DESTINATIONS = ["urea", "storage", "pcc", "sale", "other"] as const;
 export const FATES = ["fuel", "flare", "vent"] as const;
 export const EMISSION_METHODS = ["carbon-mass-balance", "fuel-calculation", "measured", "default-factor"] as const;
 export const GWP_SETS = ["AR4", "AR5", "AR6"] as const;

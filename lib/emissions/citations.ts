@@ -68,8 +68,9 @@ export function citationsFor(input: EmissionsInput, set: FactorSet, gwp: GwpSet,
   }
   const destinations = new Set(streamsOf(input, "co2-export").map((s) => s.destination ?? "other"));
   for (const d of destinations) {
-    const rule = set.deduction_rules[d];
-    out.push(cite(`deduction.${d}`, `CO2 exported to ${d}: ${rule.deducted ? "deducted" : "not deducted"}`, rule));
+    const rule = set.deduction_rules[d] ?? set.deduction_rules.other;
+    const where = d === "pcc" ? "precipitated calcium carbonate" : d;
+    out.push(cite(`deduction.${d}`, `CO2 exported to ${where}: ${rule.deducted ? "deducted" : "not deducted"}`, rule));
   }
   if (streamsOf(input, "electricity-import").some((s) => !s.factor_t_per_MWh) && set.grid_electricity) {
     out.push(cite("grid-electricity", "imported electricity", set.grid_electricity));

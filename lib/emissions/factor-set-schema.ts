@@ -119,6 +119,8 @@ export const factorSetSchema = z
     gwp_default: z.enum(["AR4", "AR5", "AR6"]),
     deduction_rules: z.object({
       urea: deductionRuleSchema, storage: deductionRuleSchema, sale: deductionRuleSchema, other: deductionRuleSchema,
+      /** CO2 bound in precipitated calcium carbonate; a set without a rule treats it as "other". */
+      pcc: deductionRuleSchema.optional(),
     }),
     activity_tiers: z.array(tierSchema).optional(),
     /**

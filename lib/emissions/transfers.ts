@@ -14,7 +14,12 @@ export interface TransferSummary {
   deduction_terms: UncertaintyTerm[];
 }
 
-const DESTINATIONS: Destination[] = ["urea", "storage", "sale", "other"];
+const DESTINATIONS: Destination[] = ["urea", "storage", "pcc", "sale", "other"];
+
+/** The set's rule for a destination; a set without a rule for "pcc" (an organisation's own) treats it as "other". */
+function ruleFor(set: FactorSet, d: Destination) {
+  return set.deduction_rules[d] ?? set.deduction_rules.other;
+}
 
 /**
  * CO2 leaving in co2-export streams is always shown; it is deducted from the direct total only
@@ -30,14 +35,14 @@ export function transfers(input: EmissionsInput, set: FactorSet, flags: Flag[]):
       flags.push({ code: "export-destination-missing", severity: "warning", message: `CO2 export ${s.id} has no destination; treated as "other".` });
     }
     if (!DESTINATIONS.includes(destination)) destination = "other";
-    const rule = set.deduction_rules[destination];
+    const rule = ruleFor(set, destination);
     const t = co2MassOf(s);
     rows.push({ id: s.id, destination, co2_t: t, deducted: rule.deducted, rule_source: rule.source });
     if (rule.deducted) terms.push({ value_t: t.neg(), stream_id: s.id, meter_rel_std: relStd(s.uncertainty_pct, K95) });
   }
   const by = {} as TransferSummary["by_destination"];
   for (const d of DESTINATIONS) {
-    const rule = set.deduction_rules[d];
+    const rule = ruleFor(set, d);
     by[d] = { co2_t: rows.filter((r) => r.destination === d).reduce((a, r) => a.plus(r.co2_t), ZERO),
       deducted: rule.deducted, rule_source: rule.source };
   }

@@ -10,7 +10,7 @@ export type StreamKind =
 export interface StreamFigures {
   id: string;
   kind: StreamKind;
-  destination?: "urea" | "storage" | "sale" | "other"; // co2-export only
+  destination?: "urea" | "storage" | "pcc" | "sale" | "other"; // co2-export only (pcc: precipitated calcium carbonate)
   fate?: "fuel" | "flare" | "vent";                     // purge-gas only
   analysis?: string;                                     // analysis id used
   unit: string;                                          // unit as written in the file

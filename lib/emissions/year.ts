@@ -127,8 +127,9 @@ export function rollUpYear(months: YearMonthEntry[]): YearResult {
     n2o_t: sumOf(entries, (r) => r.emissions.n2o_t), co2e_t: sumOf(entries, (r) => r.emissions.co2e_t),
     transferred_co2_t: sumOf(entries, (r) => r.emissions.transferred_co2_t), net_co2e_t: sumOf(entries, (r) => r.emissions.net_co2e_t),
   };
-  const dests: Destination[] = ["urea", "storage", "sale", "other"];
-  const byDest = Object.fromEntries(dests.map((d) => [d, sumOf(entries, (r) => r.transfers.by_destination[d].co2_t)])) as Record<Destination, Decimal>;
+  const dests: Destination[] = ["urea", "storage", "pcc", "sale", "other"];
+  // Months frozen before "pcc" existed carry no entry for it: nothing went there.
+  const byDest = Object.fromEntries(dests.map((d) => [d, sumOf(entries, (r) => r.transfers.by_destination[d]?.co2_t ?? ZERO)])) as Record<Destination, Decimal>;
   const ok = nh3.gt(0);
   const indirectT = sumOf(entries, (r) => r.intensity.indirect_co2e_t);
   return {

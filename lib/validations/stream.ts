@@ -90,7 +90,7 @@ export const streamSchema = z
     if (s.analysisKey && !MAY_HAVE_ANALYSIS.includes(s.kind)) at("analysisKey", "Only gas streams and process air have an analysis.");
     if (s.kind === "purge-gas" && !s.fate) at("fate", "Say where the purge goes: fuel, flare or vent.");
     if (s.fate && s.kind !== "purge-gas") at("fate", "Only purge gas has a fate.");
-    if (s.kind === "co2-export" && !s.destination) at("destination", "Say where the CO2 goes: urea, storage, sale or other.");
+    if (s.kind === "co2-export" && !s.destination) at("destination", "Say where the CO2 goes: urea, storage, precipitated calcium carbonate, sale or other.");
     if (s.destination && s.kind !== "co2-export") at("destination", "Only CO2 export has a destination.");
     if (!s.metered && s.uncertaintyPct) at("uncertaintyPct", "A stream no meter measures has no meter uncertainty: leave it empty, the balances give its figure.");
     if (!s.metered && s.systematicPct) at("systematicPct", "A stream no meter measures has no meter uncertainty to split.");

@@ -65,6 +65,10 @@ export const EU_MRR: FactorSet = {
     storage: { deducted: true, source: "Reg. (EU) 601/2012 Art 49(1)(a)–(c): transfers to capture, transport or geological storage", status: "confirmed", checked: READ_601 },
     sale: { deducted: false, source: "Reg. (EU) 601/2012 Art 49(1): no subtraction for transfers other than to storage", status: "confirmed", checked: READ_601 },
     other: { deducted: false, source: "Reg. (EU) 601/2012 Art 49(1): no subtraction for transfers other than to storage", status: "confirmed", checked: READ_601 },
+    // 2018/2066 (which replaced 601/2012 from 2021) adds point (b): after the Court's ruling in
+    // Schaefer Kalk (C-460/15, 2017), CO2 chemically bound in precipitated calcium carbonate.
+    pcc: { deducted: true, source: "Reg. (EU) 2018/2066 Art 49(1)(b): CO2 transferred out and used to produce precipitated calcium carbonate, in which it is chemically bound", status: "confirmed",
+      checked: "Art 49(1)(b) in a consolidated German text of Reg. (EU) 2018/2066 (gesetze.legal, read 2026-12); the consolidation date is not stated there" },
   },
   activity_tiers: [tier(1, "7.5"), tier(2, "5"), tier(3, "2.5"), tier(4, "1.5")],
   analysis_uncertainty: ANALYSIS_DEFAULT_UNCERTAINTY,

@@ -61,6 +61,7 @@ export const IPCC_2006: FactorSet = {
       note: "counted instead where the urea is applied (Vol 4 Ch 11)" },
     storage: { deducted: true, source: "IPCC 2006 Vol 3 §3.2 Eq 3.1, R(CO2) recovered; Vol 2 Ch 5 storage", status: "unconfirmed" },
     sale: { deducted: false, source: "IPCC 2006 Vol 3 §3.2 (our reading: only urea and storage recovery are R)", status: "unconfirmed" },
+    pcc: { deducted: false, source: "IPCC 2006 Vol 3 §3.2 (our reading: CO2 bound in precipitated calcium carbonate is not R)", status: "unconfirmed" },
     other: { deducted: false, source: "IPCC 2006 Vol 3 §3.2 (our reading)", status: "unconfirmed" },
   },
 };

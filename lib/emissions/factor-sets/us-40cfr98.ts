@@ -71,6 +71,7 @@ export const US_40CFR98: FactorSet = {
     urea: { deducted: false, source: "40 CFR 98.72(a): process CO2 includes CO2 later consumed for urea", status: "confirmed", checked: READ_72 },
     storage: { deducted: false, source: "40 CFR 98 Subpart G (captured CO2 reported under Subpart PP, not deducted)", status: "unconfirmed" },
     sale: { deducted: false, source: "40 CFR 98.72", status: "unconfirmed" },
+    pcc: { deducted: false, source: "40 CFR 98.72", status: "unconfirmed" },
     other: { deducted: false, source: "40 CFR 98.72", status: "unconfirmed" },
   },
 };

@@ -1,5 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { computeEmissions } from "../../../lib/emissions/index";
+import { EU_MRR } from "../../../lib/emissions/factor-sets/eu-mrr";
+import { FactorSetRegistry } from "../../../lib/emissions/registry";
 import { co2Stream, plant, withMethod } from "./fixtures";
 
 // Reference plant: 21 000 t C in (feed + fuel), 40 000 t CO2 to urea. Under IPCC 44/12 the gross
@@ -33,6 +35,27 @@ describe("CO2 exported to urea: deducted under one rule set and not under anothe
     expect(r.emissions.transferred_co2_t.toString()).toBe("46000");
     expect(r.transfers.by_destination.sale.co2_t.toString()).toBe("1000");
     expect(r.co2.net_t.toString()).toBe("71944"); // 76 944 − 5 000
+  });
+  it("EU MRR deducts CO2 bound in precipitated calcium carbonate (Reg. (EU) 2018/2066 Art 49(1)(b)); IPCC and 40 CFR 98 do not", () => {
+    const input = plant({}, [co2Stream("pcc", "co2-export", "3000", "2", "pcc")]);
+    const eu = computeEmissions(withMethod(input, { factor_set: "eu-mrr" }));
+    expect(eu.co2.deductible_t.toString()).toBe("3000");
+    expect(eu.transfers.by_destination.pcc).toMatchObject({ deducted: true });
+    expect(eu.transfers.by_destination.pcc.rule_source).toContain("2018/2066 Art 49(1)(b)");
+    expect(eu.citations.find((c) => c.key === "deduction.pcc")?.status).toBe("confirmed");
+    const ipcc = computeEmissions(input);
+    expect(ipcc.co2.deductible_t.toString()).toBe("40000"); // urea only
+    const us = computeEmissions(withMethod(input, { factor_set: "us-40cfr98" }));
+    expect(us.co2.deductible_t.toString()).toBe("0");
+  });
+  it("an organisation's own set without a pcc rule treats pcc as other", () => {
+    const { pcc: _pcc, ...rules } = EU_MRR.deduction_rules;
+    void _pcc;
+    const own = { ...EU_MRR, id: "own-set", deduction_rules: { ...rules, other: { deducted: true, source: "our own rule for other transfers", status: "unconfirmed" as const } } };
+    const input = plant({}, [co2Stream("pcc", "co2-export", "3000", "2", "pcc")]);
+    const r = computeEmissions(withMethod(input, { factor_set: "own-set" }), new FactorSetRegistry([own]));
+    const row = r.transfers.rows.find((x) => x.id === "pcc")!;
+    expect(row).toMatchObject({ destination: "pcc", deducted: true, rule_source: "our own rule for other transfers" });
   });
   it("EU MRR counts no CH4 or N2O (EU ETS covers CO2 only for ammonia, from memory)", () => {
     const r = computeEmissions(withMethod(plant(), { factor_set: "eu-mrr" }));
