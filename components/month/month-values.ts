@@ -95,8 +95,9 @@ export function toFigures(values: MonthFormValues, expectedVersion: number): { f
       components: Object.fromEntries(filled.map((c) => [c.component, c.value.trim()])),
       ...(a.sampledOn ? { sampledOn: a.sampledOn } : {}),
       ...(a.laboratory.trim() ? { laboratory: a.laboratory.trim() } : {}),
-      ...(a.carbonUncertaintyPct.trim() ? { carbonUncertaintyPct: a.carbonUncertaintyPct.trim() } : {}),
-      ...(a.cvUncertaintyPct.trim() ? { cvUncertaintyPct: a.cvUncertaintyPct.trim() } : {}),
+      // Always sent: an emptied box clears the figure ("").
+      carbonUncertaintyPct: a.carbonUncertaintyPct.trim(),
+      cvUncertaintyPct: a.cvUncertaintyPct.trim(),
       ...(a.note.trim() ? { note: a.note.trim() } : {}),
     });
   });

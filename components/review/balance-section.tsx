@@ -111,11 +111,11 @@ export function BalanceSection({ doc, model, tolerance, streams }: { doc: Result
                 caption="Flows without a meter"
                 columns={[
                   { title: "Stream", cell: (u) => <span>{byKey.get(u.stream!)?.name ?? u.stream}</span> },
-                  { title: "Figure used", numeric: true, cell: (u) => <QtyCell q={{ value: fixed(u.quantity, 3), unit: byKey.get(u.stream!)?.unit ?? "" }} /> },
+                  { title: "Figure used", numeric: true, cell: (u) => <QtyCell q={{ value: fixed(doc.streams.find((s) => s.id === u.stream)?.quantity ?? u.quantity, 3), unit: byKey.get(u.stream!)?.unit ?? "" }} /> },
                   {
                     title: "How",
                     cell: (u) =>
-                      u.observable ? (
+                      u.observable && u.quantity && !u.quantity.startsWith("-") ? (
                         <MarkText mark="info">Solved from the balances</MarkText>
                       ) : (
                         <MarkText mark="attention">The balances cannot fix it: the entered estimate is used (none entered: zero)</MarkText>

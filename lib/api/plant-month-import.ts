@@ -7,6 +7,8 @@ interface SiteStream {
   key: string;
   kind: string;
   archivedAt: Date | null;
+  /** Absent: metered (callers that do not load it). */
+  metered?: boolean;
 }
 
 export interface ImportPlan {
@@ -42,6 +44,7 @@ export function planImport(text: string, period: string, site: { name: string; c
     if (!known) issues.push({ path: `streams[${i}].id`, message: `${siteName} has no stream "${s.id}" (its streams: ${streams.map((x) => x.key).join(", ") || "none yet"})` });
     else if (known.kind !== s.kind) issues.push({ path: `streams[${i}].kind`, message: `"${s.id}" is a ${known.kind} stream at ${siteName}, not ${s.kind}` });
     else if (known.archivedAt) issues.push({ path: `streams[${i}].id`, message: `"${s.id}" is archived at ${siteName}; it takes no new readings` });
+    else if (s.metered === false && known.metered !== false) issues.push({ path: `streams[${i}].metered`, message: `"${s.id}" is metered at ${siteName}; declare it not metered in site settings first` });
   });
   if (issues.length) throw new HttpError(400, "invalid_input", "The file does not match the site; nothing was saved.", issues);
 
@@ -49,11 +52,17 @@ export function planImport(text: string, period: string, site: { name: string; c
   const input: MonthFiguresInput = {
     expectedVersion,
     // Decimal.toFixed() writes the exact value without an exponent: no digit is lost or invented.
-    readings: doc.streams.map((s) => ({ stream: s.id, quantity: s.quantity.toFixed(), unit: s.unit, ...(s.note ? { note: s.note } : {}) })),
+    // A stream not metered with no estimate in the file has nothing to save.
+    readings: doc.streams.filter((s) => !s.quantity_missing).map((s) => ({ stream: s.id, quantity: s.quantity.toFixed(), unit: s.unit, ...(s.note ? { note: s.note } : {}) })),
     analyses: analysisKeys.map((key) => {
-      const components = Object.fromEntries(Object.entries(doc.analyses[key].components).flatMap(([c, v]) => (v === undefined ? [] : [[c, v.toFixed()]])));
-      const note = doc.analyses[key].note;
-      return { key, components, ...(note ? { note } : {}) };
+      const a = doc.analyses[key];
+      const components = Object.fromEntries(Object.entries(a.components).flatMap(([c, v]) => (v === undefined ? [] : [[c, v.toFixed()]])));
+      return {
+        key, components,
+        ...(a.carbon_uncertainty_pct !== undefined ? { carbonUncertaintyPct: a.carbon_uncertainty_pct.toFixed() } : {}),
+        ...(a.cv_uncertainty_pct !== undefined ? { cvUncertaintyPct: a.cv_uncertainty_pct.toFixed() } : {}),
+        ...(a.note ? { note: a.note } : {}),
+      };
     }),
   };
   const filePath = (path: string) =>

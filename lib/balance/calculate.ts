@@ -7,7 +7,7 @@ import { type GasProperties, calorificValues } from "./gas-properties";
 import { type PlantReconciliation, reconcilePlant } from "./reconcile-plant";
 import { type EmissionsPart, buildEmissionsInput, emissionsPart } from "./result";
 import type { FactorSetRegistry } from "../emissions/registry";
-import type { PlantMonth } from "./schema";
+import { isUnmetered, type PlantMonth } from "./schema";
 import { type StreamFlow, analysesOf, streamFlow } from "./streams";
 import type { AnalysisFigures, Flag, StreamFigures } from "./types";
 import { UnitError } from "./units";
@@ -118,11 +118,15 @@ export function calculate(doc: PlantMonth, options: CalculateOptions = {}): Calc
       throw e;
     }
   });
-  const reconciliation = options.reconcile === false ? null : reconcileOrExplain(measuredFlows, options.confidence ?? dec("0.95"));
+  // A stream no meter measures gets its quantity from the reconciliation, so a month holding one is
+  // reconciled even where the caller asked to skip it (the figures would be wrong otherwise).
+  const reconcile = options.reconcile !== false || doc.streams.some(isUnmetered);
+  const reconciliation = reconcile ? reconcileOrExplain(measuredFlows, options.confidence ?? dec("0.95")) : null;
   // A stream that is not metered takes the quantity the balances fix for it, everywhere after.
   const flows = measuredFlows.map((f, i) => {
     const solved = reconciliation?.unmeasured.find((u) => u.stream === f.stream.id)?.quantity;
-    return solved ? streamFlow({ ...doc.streams[i], quantity: solved }, gases) : f;
+    // A negative flow is no flow: the estimate stays and the reconciliation's flag says why.
+    return solved && !solved.isNegative() ? streamFlow({ ...doc.streams[i], quantity: solved }, gases) : f;
   });
   const balances = elementBalances(flows);
   const feed = feedFigures(flows);

@@ -92,7 +92,7 @@ function memoGas<T>(gas: GasProperties, key: string, work: () => T): T {
   return m.get(key) as T;
 }
 
-/** Summation factor at a metering reference; 60/68 °F extrapolated linearly from the 0 and 15 °C values. */
+/** Summation factor at a metering reference: the ISO 6976:2016 Table A.3 column for it (60 °F takes 15.55 °C, 68 °F takes 20 °C). */
 export function summationFactor(c: Component, ref: Reference): Dec {
   return COMPONENT_DATA[c].s[ref];
 }

@@ -169,10 +169,15 @@ export function reconciliationFlags(streams: StreamReconciliation[], passed: boo
 function unmeteredFlags(unmeasured: UnmeasuredFlow[], flows: StreamFlow[]): Flag[] {
   return unmeasured.filter((u) => u.stream !== null).map((u): Flag => {
     const s = flows.find((f) => f.stream.id === u.stream)!.stream;
+    if (u.quantity && u.quantity.isNegative())
+      return { code: "unmetered-stream-negative", severity: "warning", stream: s.id,
+        message: `${s.id} is not metered and the balances would put it below zero (${u.quantity.toSignificantDigits(6).toFixed()} ${s.unit}): the estimate ${s.quantity.toFixed()} ${s.unit} is kept; check the other meters` };
     return u.quantity
       ? { code: "unmetered-stream-solved", severity: "info", stream: s.id,
-          message: `${s.id} is not metered: the balances put it at ${u.quantity.toSignificantDigits(6).toFixed()} ${s.unit}, used as its quantity` }
+          message: `${s.id} is not metered: the balances put it at ${u.quantity.toSignificantDigits(6).toFixed()} ${s.unit}, used as its quantity (its own uncertainty, which comes from the other meters, is not carried into the emissions' uncertainty)` }
       : { code: "unmetered-stream-unknown", severity: "warning", stream: s.id,
-          message: `${s.id} is not metered and the balances do not fix it: its estimate ${s.quantity.toFixed()} ${s.unit} is used; meter it or give a better estimate` };
+          message: s.quantity_missing
+          ? `${s.id} is not metered, the balances do not fix it and no estimate was given: it counts as 0 ${s.unit}; meter it or enter an estimate`
+          : `${s.id} is not metered and the balances do not fix it: its estimate ${s.quantity.toFixed()} ${s.unit} is used; meter it or give a better estimate` };
   });
 }

@@ -5,8 +5,13 @@ import type { UncertaintyFigures } from "../emissions/uncertainty";
 import type { EmissionsResult } from "../emissions/result";
 import { type Dec, num } from "./decimal";
 
-/** The uncertainty of one figure: expanded at 95 %, with its meter (systematic and random), analysis and factor parts. */
-export function uncertaintyJson(u: UncertaintyFigures) {
+/**
+ * The uncertainty of one figure: expanded at 95 %, with its meter (systematic and random),
+ * analysis and factor parts. A calculation frozen by an earlier engine lacks the analysis part
+ * and the meter split: those read as absent (null, empty), never as a crash.
+ */
+export function uncertaintyJson(given: UncertaintyFigures) {
+  const u = given as Partial<UncertaintyFigures> & Pick<UncertaintyFigures, "value_t" | "u95_t" | "u95_pct" | "coverage_factor" | "u_std_t" | "meter_u_std_t" | "factor_u_std_t" | "meter_components" | "factor_components" | "meters_without_uncertainty">;
   return {
     value_t: num(u.value_t),
     u95_t: num(u.u95_t),
@@ -15,17 +20,17 @@ export function uncertaintyJson(u: UncertaintyFigures) {
     coverage_factor: num(u.coverage_factor),
     u_std_t: num(u.u_std_t),
     meter_u_std_t: num(u.meter_u_std_t),
-    meter_systematic_u_std_t: num(u.meter_systematic_u_std_t),
-    meter_random_u_std_t: num(u.meter_random_u_std_t),
-    analysis_u_std_t: num(u.analysis_u_std_t),
+    meter_systematic_u_std_t: num(u.meter_systematic_u_std_t ?? null),
+    meter_random_u_std_t: num(u.meter_random_u_std_t ?? null),
+    analysis_u_std_t: num(u.analysis_u_std_t ?? null),
     factor_u_std_t: num(u.factor_u_std_t),
     meter_components: u.meter_components.map((c) => ({
-      key: c.key, u_std_t: num(c.u_std_t), systematic_u_std_t: num(c.systematic_u_std_t), random_u_std_t: num(c.random_u_std_t), period: c.period,
+      key: c.key, u_std_t: num(c.u_std_t), systematic_u_std_t: num(c.systematic_u_std_t ?? null), random_u_std_t: num(c.random_u_std_t ?? null), period: c.period ?? null,
     })),
-    analysis_components: u.analysis_components.map((c) => ({ key: c.key, u_std_t: num(c.u_std_t) })),
+    analysis_components: (u.analysis_components ?? []).map((c) => ({ key: c.key, u_std_t: num(c.u_std_t) })),
     factor_components: u.factor_components.map((c) => ({ key: c.key, u_std_t: num(c.u_std_t) })),
     meters_without_uncertainty: u.meters_without_uncertainty,
-    correlation: u.correlation,
+    correlation: u.correlation ?? null,
   };
 }
 
@@ -77,7 +82,8 @@ export function emissionsDocumentPart(d: EmissionsResult, gjLhvPerT: Dec | null,
     },
     uncertainty: {
       co2: uncertaintyJson(d.uncertainty.co2), net_co2: uncertaintyJson(d.uncertainty.net_co2),
-      co2e: uncertaintyJson(d.uncertainty.co2e), net_co2e: uncertaintyJson(d.uncertainty.net_co2e),
+      // Absent from a calculation frozen before CO2e had its own uncertainty.
+      ...(d.uncertainty.co2e ? { co2e: uncertaintyJson(d.uncertainty.co2e), net_co2e: uncertaintyJson(d.uncertainty.net_co2e) } : {}),
     },
     // A tier is an ordinal class (1–4, 0 below the loosest), like `dof`: written as a JSON integer.
     activity_tiers: d.tiers.map((t) => ({ stream: t.stream_id, kind: t.kind, uncertainty_pct: num(t.uncertainty_pct), tier: t.tier })),

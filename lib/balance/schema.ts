@@ -165,12 +165,12 @@ export const plantMonthSchema = z
 type ParsedPlantMonth = z.output<typeof plantMonthSchema>;
 type ParsedStream = ParsedPlantMonth["streams"][number];
 /** A stream as the engine reads it: the quantity always present (0 where a stream that is not metered gave none). */
-export type PlantMonthStream = Omit<ParsedStream, "quantity"> & { quantity: Dec };
+export type PlantMonthStream = Omit<ParsedStream, "quantity"> & { quantity: Dec; /** true where the file gave no quantity (a stream not metered, no estimate). */ quantity_missing?: true };
 export type PlantMonth = Omit<ParsedPlantMonth, "streams"> & { streams: PlantMonthStream[] };
 
 /** The unknown quantity of a stream that is not metered reads as 0 until the reconciliation solves for it. */
 function withQuantities(doc: ParsedPlantMonth): PlantMonth {
-  return { ...doc, streams: doc.streams.map((s) => ({ ...s, quantity: s.quantity ?? new Dec(0) })) };
+  return { ...doc, streams: doc.streams.map((s) => (s.quantity === undefined ? { ...s, quantity: new Dec(0), quantity_missing: true as const } : { ...s, quantity: s.quantity })) };
 }
 
 /** A stream whose quantity is not a meter's: declared "metered": false. */

@@ -137,7 +137,11 @@ export function computeEmissions(input: EmissionsInput, registry: FactorSetRegis
 function meterSplits(input: EmissionsInput): Map<string, MeterSplit> {
   const out = new Map<string, MeterSplit>();
   for (const s of input.streams) {
-    out.set(s.id, { systematic_share: s.systematic_pct === undefined ? dec(1) : dec(s.systematic_pct).div(100), period: s.calibrated_on ?? null });
+    out.set(s.id, {
+      systematic_share: s.systematic_pct === undefined ? dec(1) : dec(s.systematic_pct).div(100),
+      period: s.calibrated_on ?? null,
+      ...(s.metered === false ? { unmetered: true } : {}),
+    });
   }
   return out;
 }

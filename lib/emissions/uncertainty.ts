@@ -17,7 +17,12 @@ export interface MeterComponent extends UncertaintyComponent {
 }
 
 /** How a meter's uncertainty is split, per stream id (absent: all systematic, period unknown). */
-export interface MeterSplit { systematic_share: Decimal; period: string | null }
+export interface MeterSplit {
+  systematic_share: Decimal;
+  period: string | null;
+  /** A stream no meter measures: it has no meter uncertainty to miss. */
+  unmetered?: boolean;
+}
 
 export interface UncertaintyFigures {
   value_t: Decimal;
@@ -53,8 +58,10 @@ const ONE = dec(1);
  * multiplying several streams is fully correlated with itself: its contributions add linearly
  * before squaring. Different meters, analyses and factors are independent. Inputs are expanded
  * (95 %) uncertainties; they are divided by 1.96 to standard and the result multiplied back.
- * Each meter's part is split by `splits` into systematic and random (u_sys = u·√share, so that
- * u_sys² + u_rand² = u²); within one month the split changes nothing, across months it does.
+ * Each meter's part is split by `splits` into systematic and random: the share is of the stated
+ * uncertainty, u_sys = share·u, and the random part takes the rest of the variance,
+ * u_rand = u·√(1 − share²), so that u_sys² + u_rand² = u²; within one month the split changes
+ * nothing, across months it does.
  */
 export function propagate(terms: UncertaintyTerm[], k: Decimal = K95, splits: ReadonlyMap<string, MeterSplit> = new Map()): UncertaintyFigures {
   const meters = new Map<string, Decimal>();
@@ -66,7 +73,7 @@ export function propagate(terms: UncertaintyTerm[], k: Decimal = K95, splits: Re
     value = value.plus(t.value_t);
     const id = t.stream_id ?? "(unnamed)";
     if (t.meter_rel_std === null || t.meter_rel_std === undefined) {
-      if (t.stream_id) missing.add(t.stream_id);
+      if (t.stream_id && !splits.get(t.stream_id)?.unmetered) missing.add(t.stream_id);
     } else {
       meters.set(id, (meters.get(id) ?? ZERO).plus(t.value_t.times(t.meter_rel_std)));
     }
@@ -88,10 +95,10 @@ export function propagate(terms: UncertaintyTerm[], k: Decimal = K95, splits: Re
   return summarise(value, meterComponents, analysisComponents, factorComponents, [...missing], k, MONTH_CORRELATION);
 }
 
-/** A meter part of standard uncertainty u with the given systematic share (0–1) of its variance. */
+/** A meter part of standard uncertainty u whose systematic part is `share` (0–1) of u. */
 export function meterComponent(key: string, u: Decimal, share: Decimal, period: string | null): MeterComponent {
-  const sys = share.eq(1) ? u : share.isZero() ? ZERO : u.times(sqrtOf(share));
-  const rand = share.eq(1) ? ZERO : share.isZero() ? u : u.times(sqrtOf(ONE.minus(share)));
+  const sys = share.eq(1) ? u : u.times(share);
+  const rand = share.eq(1) ? ZERO : share.isZero() ? u : u.times(sqrtOf(ONE.minus(share.times(share))));
   return { key, u_std_t: u, systematic_u_std_t: sys, random_u_std_t: rand, period };
 }
 

@@ -20,6 +20,8 @@ export interface StreamRow {
   calibratedOn?: string | null;
   /** False: no meter measures the flow; the document says so and the balances solve for it. */
   metered?: boolean;
+  /** An archived stream no meter measures no longer joins new months. */
+  archivedAt?: Date | null;
   indirectFactor: string | null;
   meterTag: string | null;
   sortOrder: number;
@@ -61,7 +63,7 @@ export function monthDocument(input: MonthDocumentInput): Record<string, unknown
     .flatMap((s) => {
       const r = byStream.get(s.id);
       const unmetered = s.metered === false;
-      if (!r && !unmetered) return [];
+      if (!r && (!unmetered || s.archivedAt)) return [];
       const out: Record<string, unknown> = { id: s.key, kind: s.kind };
       if (s.analysisKey) out.analysis = s.analysisKey;
       if (s.fate) out.fate = s.fate;

@@ -175,7 +175,10 @@ export async function saveMonthFigures(db: Db, editor: Editor, siteId: string, p
       const [old] = await tx.select().from(gasAnalyses).where(and(eq(gasAnalyses.monthId, month.id), eq(gasAnalyses.key, a.key)));
       const values: AnalysisValues = {
         components, sampledOn: a.sampledOn || null, laboratory: a.laboratory || null,
-        carbonUncertaintyPct: a.carbonUncertaintyPct || null, cvUncertaintyPct: a.cvUncertaintyPct || null, note: a.note || null,
+        // Absent keeps what was stored (an import that does not carry it); "" clears it.
+        carbonUncertaintyPct: a.carbonUncertaintyPct === undefined ? (old?.carbonUncertaintyPct ?? null) : a.carbonUncertaintyPct || null,
+        cvUncertaintyPct: a.cvUncertaintyPct === undefined ? (old?.cvUncertaintyPct ?? null) : a.cvUncertaintyPct || null,
+        note: a.note || null,
       };
       // Unchanged when every component has the same value (93.10 = 93.1, in any order) and the
       // sample's date, laboratory and note are the same: a form re-sending it is not a change.

@@ -35,7 +35,8 @@ export async function loadSiteYear(
   const rows = await loadSiteYearRows(db, organisationId, siteId, year);
   if (!rows) return null;
   const { site, streams } = rows;
-  const active = new Set(streams.filter((s) => s.archivedAt === null).map((s) => s.id));
+  // A stream no meter measures is not a missing reading: the balances give its figure.
+  const active = new Set(streams.filter((s) => s.archivedAt === null && s.metered !== false).map((s) => s.id));
   const frozen = new Map<string, FrozenFacts>();
 
   const runs: MonthRun[] = rows.months.filter((m) => !only || only.has(m.period)).map((m) => {

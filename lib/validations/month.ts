@@ -53,9 +53,10 @@ export const analysisInputSchema = z.strictObject({
   sampledOn: z.iso.date({ error: "sampled on must be a date YYYY-MM-DD" }).optional(),
   laboratory: typedText("laboratory", LIMITS.nameChars).optional(),
   /** Expanded (95 %) relative uncertainty of the carbon content, %, as the laboratory states it. */
-  carbonUncertaintyPct: decimalText("carbon content uncertainty").refine((v) => Number(v) <= 100, "carbon content uncertainty must be at most 100 (%)").optional(),
+  // Absent: unchanged; "": cleared (the set's default applies again).
+  carbonUncertaintyPct: z.union([z.literal(""), decimalText("carbon content uncertainty").refine((v) => Number(v) <= 100, "carbon content uncertainty must be at most 100 (%)")]).optional(),
   /** Likewise of the calorific value. */
-  cvUncertaintyPct: decimalText("calorific value uncertainty").refine((v) => Number(v) <= 100, "calorific value uncertainty must be at most 100 (%)").optional(),
+  cvUncertaintyPct: z.union([z.literal(""), decimalText("calorific value uncertainty").refine((v) => Number(v) <= 100, "calorific value uncertainty must be at most 100 (%)")]).optional(),
   note: typedText("note", LIMITS.noteChars).optional(),
 });
 export type AnalysisInput = z.input<typeof analysisInputSchema>;

@@ -46,6 +46,13 @@ describe("a month whose CO2 vent has no meter", () => {
     expect(r.flags.find((f) => f.code === "unmetered-stream-solved")?.stream).toBe("co2-vent");
   });
 
+  it("is solved even where the caller skips reconciliation (a year's other rule sets, the what-if), and raises no missing-uncertainty warning", () => {
+    const full = calculate(edited(noVentMeter));
+    const quick = calculate(edited(noVentMeter), { reconcile: false });
+    expect(quick.streams.find((s) => s.id === "co2-vent")!.quantity.eq(full.streams.find((s) => s.id === "co2-vent")!.quantity)).toBe(true);
+    expect(full.flags.map((f) => f.code)).not.toContain("uncertainty-incomplete");
+  });
+
   it("still names the one meter that is 5 % off (ammonia read high)", () => {
     const r = calculate(edited((ss) => noVentMeter(ss).map((s) => (s.id === "nh3" ? { ...s, quantity: new Dec(s.quantity as string).times("1.05").toFixed() } : s))));
     expect(r.reconciliation!.passed).toBe(false);

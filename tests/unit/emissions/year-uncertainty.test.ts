@@ -26,9 +26,12 @@ const meterU = CO2.map((v) => (v * 0.02) / k);
 const cvU = CO2.map((v) => (v * 0.005) / k);
 const factorU = CO2.map((v) => (v * 0.036) / k);
 
-/** u(y) by GUM Eq. (13) over the inputs [meter sys m1, m2, meter random m1, m2, cv m1, m2, factor m1, m2]. */
+/**
+ * u(y) by GUM Eq. (13) over the inputs [meter sys m1, m2, meter random m1, m2, cv m1, m2, factor
+ * m1, m2]; the repeating share is of the meter's uncertainty (u_sys = share·u, u_rand² = u² − u_sys²).
+ */
 function gum(share: number, samePeriod: boolean): number {
-  const u = [...meterU.map((x) => x * Math.sqrt(share)), ...meterU.map((x) => x * Math.sqrt(1 - share)), ...cvU, ...factorU];
+  const u = [...meterU.map((x) => x * share), ...meterU.map((x) => x * Math.sqrt(1 - share * share)), ...cvU, ...factorU];
   const r = (i: number, j: number) => {
     if (i === j) return 1;
     const pair = (a: number) => Math.floor(a / 2); // 0 sys, 1 random, 2 cv, 3 factor
@@ -77,7 +80,7 @@ describe("the year's CO2 uncertainty on a hand-worked two-month case matches GUM
     const analytic = y.uncertainty.co2.u95_t.toNumber();
     const normal = normalGenerator(mulberry32(20261202));
     const N = 200_000;
-    const sSys = Math.sqrt(0.6) * 0.02 / k, sRand = Math.sqrt(0.4) * 0.02 / k, sCv = 0.005 / k, sF = 0.036 / k;
+    const sSys = 0.6 * 0.02 / k, sRand = Math.sqrt(1 - 0.36) * 0.02 / k, sCv = 0.005 / k, sF = 0.036 / k;
     const ys = new Float64Array(N);
     let mean = 0;
     for (let n = 0; n < N; n++) {
