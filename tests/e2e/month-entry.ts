@@ -32,7 +32,9 @@ export async function runMonthEntry(browser: Browser, kit: E2eKit): Promise<void
   const monthNo = 2 + Math.floor(Math.random() * 11);
   const period = `${year}-${String(monthNo).padStart(2, "0")}`;
   const previous = `${year}-${String(monthNo - 1).padStart(2, "0")}`;
-  const nh3 = `43763.${String(Math.floor(Math.random() * 90) + 10)}`;
+  // Two decimals, the last never 0: the month stores 43763.30 as 43763.3, which would read back differently.
+  const digit = () => String(Math.floor(Math.random() * 9) + 1);
+  const nh3 = `43763.${digit()}${digit()}`;
   TOTALS[4] = nh3;
   let url = "";
 
