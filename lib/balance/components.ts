@@ -41,9 +41,7 @@ const row = (atoms: ComponentData["atoms"], gross: [string, string, string, stri
  * ISO 6976:2016 Table A.3 (summation factors at 0, 15, 15.55 and 20 °C) and Table A.4 (ideal
  * gross calorific values at the same temperatures), as reproduced in an open clean-room
  * implementation of the standard checked against its Annex D examples (RuedigerForster/ISO_6976,
- * src/iso6976.cpp, read 2026-12); methane 891.51 kJ/mol and the 15 °C factors of CH4, C2H6,
- * C3H8, N2 and CO2 also agree with a second transcription. The standard's own text was not read:
- * unconfirmed. 60 °F (15.56 °C) takes the 15.55 °C column; 68 °F is 20 °C.
+ * src/iso6976.cpp, read 2026-12). The standard's own text was not read: unconfirmed. 60 °F (15.56 °C) takes the 15.55 °C column; 68 °F is 20 °C.
  */
 export const TABLES = "ISO 6976:2016 Tables A.3 and A.4, as reproduced in an open implementation (unconfirmed)";
 
@@ -70,7 +68,7 @@ export const COMPONENT_DATA: Record<Component, ComponentData> = {
 
 /**
  * Standard enthalpy of vaporisation of water L0(t), kJ/mol (the water row of Table A.4, same
- * reproduction; 44.431 at 15 °C also in a second one). Net = gross − (H atoms / 2) × L0, as
+ * reproduction). Net = gross − (H atoms / 2) × L0, as
  * ISO 6976 defines it.
  */
 export const WATER_L0: AtRefs = at(["45.064", "44.431", "44.408", "44.222"]);

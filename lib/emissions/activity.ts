@@ -77,6 +77,10 @@ export function siteFactorFromAnalysis(
 }
 
 /** Relative standard uncertainty (fraction) from an expanded 95 % percentage. */
+/** Units in which a gas stream is metered as energy: no calorific value of an analysis stands between. */
+const ENERGY_UNITS = new Set(["GJ-LHV", "GJ-HHV", "MMBtu-HHV"]);
+export const meteredAsEnergy = (s: StreamFigures): boolean => ENERGY_UNITS.has(s.unit);
+
 /**
  * The relative standard uncertainty of one property of the stream's analysis: as entered with the
  * analysis, else the set's default (flagged once, naming the analyses), else none.

@@ -1,5 +1,5 @@
 import { K95, ZERO, dec, type Decimal } from "./decimal";
-import { M_CH4, activityLabel, activityOf, analysisStd, fuelFor, relStd, streamsOf } from "./activity";
+import { M_CH4, activityLabel, activityOf, analysisStd, fuelFor, meteredAsEnergy, relStd, streamsOf } from "./activity";
 import type { CitedValue, FactorSet } from "./factor-set-schema";
 import { pushOnce, type UncertaintyTerm } from "./model";
 import type { EmissionsInput, Flag, StreamFigures } from "./types";
@@ -8,14 +8,12 @@ import type { EmissionsInput, Flag, StreamFigures } from "./types";
 export type GasTerm = UncertaintyTerm & { gas: "ch4" | "n2o" };
 export interface NonCo2Row { id: string; ch4_t: Decimal; n2o_t: Decimal; basis: string; terms: GasTerm[] }
 
-const ENERGY_UNITS = new Set(["GJ-LHV", "GJ-HHV", "MMBtu-HHV"]);
-
 function gasTerm(input: EmissionsInput, set: FactorSet, s: StreamFigures, gas: "ch4" | "n2o", t: Decimal, factor: CitedValue,
   fuelKey: string, viaEnergy: boolean, flags: Flag[]): GasTerm {
   const factorStd = relStd(factor.uncertainty_pct, K95);
   return {
     gas, value_t: t, stream_id: s.id, meter_rel_std: relStd(s.uncertainty_pct, K95),
-    ...(viaEnergy && !ENERGY_UNITS.has(s.unit) ? analysisStd(input, set, s, "cv", flags) : {}),
+    ...(viaEnergy && !meteredAsEnergy(s) ? analysisStd(input, set, s, "cv", flags) : {}),
     ...(factorStd ? { factor_key: `${set.id}:${fuelKey}:${gas}`, factor_rel_std: factorStd } : {}),
   };
 }

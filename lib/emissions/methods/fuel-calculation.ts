@@ -1,12 +1,9 @@
 import { K95, ZERO, dec } from "../decimal";
-import { activityLabel, activityOf, analysisStd, carbonInputs, fuelFor, relStd, siteFactorFromAnalysis, stoichiometricFactor } from "../activity";
+import { activityLabel, activityOf, analysisStd, meteredAsEnergy, carbonInputs, fuelFor, relStd, siteFactorFromAnalysis, stoichiometricFactor } from "../activity";
 import type { FactorSet } from "../factor-set-schema";
 import { pushOnce, type MethodOutcome, type StreamEmission, type UncertaintyTerm } from "../model";
 import type { EmissionsInput, Flag } from "../types";
 import { notePurgeInternal, ventedPurgeCarbon } from "./carbon-common";
-
-/** Units in which a gas stream is metered as energy (no calorific value of an analysis involved). */
-const ENERGY_UNITS = new Set(["GJ-LHV", "GJ-HHV", "MMBtu-HHV"]);
 
 /**
  * Fuel-by-fuel calculation: activity × emission factor × oxidation factor for each feed and fuel
@@ -59,7 +56,7 @@ export function fuelCalculation(input: EmissionsInput, set: FactorSet): MethodOu
         message: `${fuel.co2.source} states no uncertainty for the ${key} CO2 factor; it is taken as exact.` });
     }
     // A metered volume or mass becomes energy through the analysis's calorific value, which carries its own uncertainty.
-    const viaCv = fuel.activity.kind === "energy" && !ENERGY_UNITS.has(s.unit);
+    const viaCv = fuel.activity.kind === "energy" && !meteredAsEnergy(s);
     terms.push({ value_t: co2, stream_id: s.id, meter_rel_std: meter,
       ...(viaCv ? analysisStd(input, set, s, "cv", flags) : {}),
       ...(factorStd ? { factor_key: `${set.id}:${key}:co2`, factor_rel_std: factorStd } : {}) });

@@ -1,10 +1,8 @@
 // ISO 6976:2016 values the engine's gas properties rest on, each against the 2016 tables as an
 // open clean-room implementation checked against the standard's Annex D examples reproduces them:
 // RuedigerForster/ISO_6976, src/iso6976.cpp (Table A.3 summation factors at 0, 15, 15.55 and
-// 20 °C; Table A.4 gross calorific values and the water row L0). A second transcription,
-// equinor/neqsim src/main/resources/data/ISO6976constants2016.csv, agrees for the hydrocarbons'
-// factors at 15 °C and L0 at 15 °C. The standard's own text was not read: the code marks them
-// unconfirmed.
+// 20 °C; Table A.4 gross calorific values and the water row L0). The standard's own text was
+// not read: the code marks them unconfirmed.
 import { describe, expect, it } from "vitest";
 import { type COMPONENT_DATA, WATER_L0 } from "../../../lib/balance/components";
 import { componentGross, componentNet, summationFactor } from "../../../lib/balance/gas-properties";
