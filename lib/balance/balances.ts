@@ -13,6 +13,7 @@ export const BALANCE_NAMES: readonly BalanceName[] = ["carbon", "nitrogen", "hyd
 export type Side = "in" | "out";
 export type BalanceTerms = Partial<Record<BalanceName, { side: Side; perUnit: Dec }>>;
 
+const HALF = dec("0.5");
 const termsOfFlow = new WeakMap<StreamFlow, BalanceTerms>();
 
 /** kmol of C / N2 / H2-equivalents per unit of the stream's quantity, and which side it counts on. */
@@ -43,7 +44,7 @@ function workBalanceTerms(flow: StreamFlow): BalanceTerms {
         hydrogen: { side: "out", perUnit: H },
       };
     case "ammonia":
-      return { nitrogen: { side: "out", perUnit: k.div(2) }, hydrogen: { side: "out", perUnit: k.times(dec("1.5")) } };
+      return { nitrogen: { side: "out", perUnit: k.times(HALF) }, hydrogen: { side: "out", perUnit: k.times(dec("1.5")) } };
     case "co2-export":
     case "co2-vent":
     case "stack-co2":

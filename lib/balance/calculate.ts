@@ -48,7 +48,7 @@ export { CalculationInputError } from "./errors";
 
 /**
  * Figures many orders of magnitude apart (one stream of 1e29 t beside meters of thousands) leave
- * the reconciliation's covariance matrix singular even in 50 digits. That is bad input, reported
+ * the reconciliation's covariance matrix singular even in 34 digits. That is bad input, reported
  * as such (the API answers 400, the month page names it), not a failure of the engine.
  */
 function reconcileOrExplain(flows: StreamFlow[], confidence: Dec): PlantReconciliation | null {

@@ -1,10 +1,20 @@
-// One Decimal constructor for the whole engine. 50 significant digits keeps every
-// intermediate (molar volumes, projections, chi-square series) far below any meter
-// resolution, so rounding never shows in a closure or a reconciled flow.
+// One Decimal constructor for the whole engine. 34 significant digits (the digits of IEEE 754
+// decimal128) keep every intermediate (molar volumes, projections, chi-square series) far below
+// any meter resolution: figures are published with 15 significant digits, and the golden test
+// (tests/unit/engine/golden.test.ts) shows every published digit of the demo months, the
+// benchmark's variants and the examples identical to the figures computed at 50 digits before
+// (issue 16). Fewer digits make each product and quotient cheaper; 28 would move some 15th digits.
 import DecimalBase from "decimal.js";
 
-export const Dec = DecimalBase.clone({ precision: 50, rounding: DecimalBase.ROUND_HALF_EVEN });
+export const Dec = DecimalBase.clone({ precision: 34, rounding: DecimalBase.ROUND_HALF_EVEN });
 export type Dec = DecimalBase;
+
+/**
+ * Stored figures added up outside the engine (a month's total of daily readings on import) keep
+ * 50 digits: a total is a record, not an intermediate, and must not depend on the engine's
+ * working precision.
+ */
+export const RecordDec = DecimalBase.clone({ precision: 50, rounding: DecimalBase.ROUND_HALF_EVEN });
 
 /** Reads a decimal literal (string), a safe integer or a Decimal; refuses a JS float so none sneaks in. */
 export function dec(value: string | number | Dec | bigint): Dec {

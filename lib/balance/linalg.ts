@@ -1,6 +1,6 @@
 // The small dense linear algebra the reconciliation needs, in Decimal. Matrices are arrays
 // of rows. Sizes here are tiny (a handful of balances × a dozen meters), so plain Gaussian
-// elimination with partial pivoting is exact enough at 50 digits and easy to audit.
+// elimination with partial pivoting is exact enough at 34 digits and easy to audit.
 import { Dec, ZERO, ONE } from "./decimal";
 
 export type Vector = Dec[];
@@ -11,21 +11,44 @@ export const identity = (n: number): Matrix => zeros(n, n).map((row, i) => row.m
 export const transpose = (m: Matrix, cols = m[0]?.length ?? 0): Matrix =>
   Array.from({ length: cols }, (_, j) => m.map((row) => row[j]));
 
+// Plain loops rather than map/reduce: these run for every month and the closures cost more than
+// the arithmetic at these sizes. Sums run left to right from zero either way.
 export function multiply(a: Matrix, b: Matrix, bCols = b[0]?.length ?? 0): Matrix {
-  return a.map((row) =>
-    Array.from({ length: bCols }, (_, j) => row.reduce((s, aik, k) => (aik.isZero() ? s : s.plus(aik.times(b[k][j]))), ZERO)),
-  );
+  const out: Matrix = new Array(a.length);
+  for (let i = 0; i < a.length; i++) {
+    const row = a[i];
+    const r = new Array<Dec>(bCols);
+    for (let j = 0; j < bCols; j++) {
+      let s = ZERO;
+      for (let k = 0; k < row.length; k++) if (!row[k].isZero()) s = s.plus(row[k].times(b[k][j]));
+      r[j] = s;
+    }
+    out[i] = r;
+  }
+  return out;
 }
 
 // Balance matrices are mostly zeros (a stream sits in one to three balances): zero terms are skipped.
-export const matVec = (a: Matrix, v: Vector): Vector => a.map((row) => dot(row, v));
-export const dot = (u: Vector, v: Vector): Dec => u.reduce((s, x, k) => (x.isZero() || v[k].isZero() ? s : s.plus(x.times(v[k]))), ZERO);
+export function matVec(a: Matrix, v: Vector): Vector {
+  const out = new Array<Dec>(a.length);
+  for (let i = 0; i < a.length; i++) out[i] = dot(a[i], v);
+  return out;
+}
+export function dot(u: Vector, v: Vector): Dec {
+  let s = ZERO;
+  for (let k = 0; k < u.length; k++) if (!u[k].isZero() && !v[k].isZero()) s = s.plus(u[k].times(v[k]));
+  return s;
+}
 
 /** Largest absolute entry, for scale-aware zero tests. */
-export const maxAbs = (m: Matrix): Dec => m.flat().reduce((s, x) => (x.abs().gt(s) ? x.abs() : s), ZERO);
+export function maxAbs(m: Matrix): Dec {
+  let best = ZERO;
+  for (const row of m) for (const x of row) if (!x.isZero() && x.abs().gt(best)) best = x.abs();
+  return best;
+}
 
-/** Relative tolerance under which a pivot counts as zero: far above 50-digit rounding, far below any physics. */
-export const RELATIVE_TOLERANCE = new Dec("1e-30");
+/** Relative tolerance under which a pivot counts as zero: far above 34-digit rounding, far below any physics. */
+export const RELATIVE_TOLERANCE = new Dec("1e-26");
 
 export interface Echelon {
   rref: Matrix;
@@ -43,13 +66,16 @@ export function rowReduce(m: Matrix, cols = m[0]?.length ?? 0): Echelon {
     for (let i = r + 1; i < a.length; i++) if (a[i][c].abs().gt(a[best][c].abs())) best = i;
     if (a[best][c].abs().lte(tol)) continue;
     [a[r], a[best]] = [a[best], a[r]];
+    // One division for the pivot, then products: the row is scaled by the pivot's reciprocal.
     const p = a[r][c];
-    a[r] = a[r].map((x) => x.div(p));
+    const inv = ONE.div(p);
+    const pivotRow = a[r].map((x, j) => (j === c ? ONE : x.isZero() ? x : x.times(inv)));
+    a[r] = pivotRow;
     for (let i = 0; i < a.length; i++) {
       if (i === r || a[i][c].isZero()) continue;
       const f = a[i][c];
-      const pivotRow = a[r];
-      a[i] = a[i].map((x, j) => (pivotRow[j].isZero() ? x : x.minus(f.times(pivotRow[j]))));
+      const row = a[i];
+      for (let j = 0; j < row.length; j++) if (!pivotRow[j].isZero()) row[j] = j === c ? ZERO : row[j].minus(f.times(pivotRow[j]));
     }
     pivots.push(c);
     r++;

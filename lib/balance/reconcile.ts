@@ -94,7 +94,7 @@ export function reconcile(p: ReconcileProblem): ReconcileSolution {
   }
   const reconciled = p.measured.map((x, j) => x.plus(adjustment[j]));
   const tested = testStatistic.filter((z) => z !== null).length;
-  const perTestConfidence = tested > 1 ? conf.pow(new Dec(1).div(tested)) : conf;
+  const perTestConfidence = tested > 1 ? sidakLevel(conf, tested) : conf;
   const zCritical = normalTwoSided(perTestConfidence);
   const chi2Critical = dof > 0 ? chiSquareQuantile(conf, dof) : null;
   const passed = chi2Critical === null || chi2.lte(chi2Critical);
@@ -113,6 +113,16 @@ export function reconcile(p: ReconcileProblem): ReconcileSolution {
     perTestConfidence,
     passed,
   };
+}
+
+const sidakCache = new Map<string, Dec>();
+
+/** c^(1/n): a power through ln and exp costs more than the rest of a month, and n is small. */
+function sidakLevel(conf: Dec, n: number): Dec {
+  const key = `${conf.toString()}/${n}`;
+  let level = sidakCache.get(key);
+  if (level === undefined) sidakCache.set(key, (level = conf.pow(new Dec(1).div(n))));
+  return level;
 }
 
 /** V = G·Σ·Gᵀ for diagonal Σ (σ² in sig2), built from its upper triangle: it is symmetric. */

@@ -85,14 +85,15 @@ export function streamFlow(s: PlantMonthStream, gases: Record<string, GasPropert
     return { stream: s, figures: { ...base, gj_lhv: toGj(s.quantity, s.unit) }, gas: null, kmolPerUnit: null };
   if (kind === "electricity" || kind === "heat") throw new Error(`unit ${s.unit} on ${s.kind}`); // schema prevents this
   const gas = streamGas(s, gases);
-  const amounts = materialAmounts(s.quantity, s.unit, gas);
+  const kmolPerUnit = toKmol(ONE, s.unit, gas);
+  const amounts = materialAmounts(s.quantity, s.unit, gas, kmolPerUnit);
   const g = gas!;
   const carbonKmol = g.atoms.C.isZero() ? null : amounts.kmol.times(g.atoms.C);
   const combustible = s.kind === "feed-gas" || s.kind === "fuel-gas" || s.kind === "purge-gas";
   return {
     stream: s,
     gas,
-    kmolPerUnit: toKmol(ONE, s.unit, gas),
+    kmolPerUnit,
     figures: {
       ...base,
       kmol: amounts.kmol,

@@ -14,6 +14,8 @@ export type Unit = (typeof UNITS)[number];
 export const MMBTU_GJ = dec("1.05505585262");
 /** 1 MWh = 3.6 GJ (exact). */
 export const MWH_GJ = dec("3.6");
+/** × 0.001 is ÷ 1000 exactly (both round the same exact value), without a long division. */
+const MILLI = dec("0.001");
 
 export type UnitDef =
   | { kind: "volume"; reference: Reference; m3: Dec }
@@ -75,14 +77,15 @@ export function fromKmol(kmol: Dec, unit: Unit, gas: GasProperties): Dec {
   return kmol.div(toKmol(dec(1), unit, gas));
 }
 
-export function materialAmounts(quantity: Dec, unit: Unit, gas: GasProperties | null): MaterialAmounts {
-  const kmol = toKmol(quantity, unit, gas);
+export function materialAmounts(quantity: Dec, unit: Unit, gas: GasProperties | null, kmolPerUnit?: Dec): MaterialAmounts {
+  // With the stream's kmol per unit already known, its amount is one product, not another division.
+  const kmol = kmolPerUnit ? quantity.times(kmolPerUnit) : toKmol(quantity, unit, gas);
   const cv = calorificValues(gas!, "15C", "15C");
   return {
     kmol,
-    t: kmol.times(gas!.molarMass).div(1000),
-    gjLhv: kmol.times(cv.netMolar).div(1000),
-    gjHhv: kmol.times(cv.grossMolar).div(1000),
+    t: kmol.times(gas!.molarMass).times(MILLI),
+    gjLhv: kmol.times(cv.netMolar).times(MILLI),
+    gjHhv: kmol.times(cv.grossMolar).times(MILLI),
   };
 }
 

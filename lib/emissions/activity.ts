@@ -101,9 +101,18 @@ export function analysisStd(input: EmissionsInput, set: FactorSet, s: StreamFigu
   return rel === null || rel.isZero() ? {} : { analysis_key: `${s.analysis}:${property}`, analysis_rel_std: rel };
 }
 
+const relStdCache = new Map<string, Decimal>();
+
+/** Expanded % → relative standard uncertainty (÷ 100 ÷ k). Months repeat a handful of stated uncertainties, so each is divided once. */
 export function relStd(expandedPct: Decimal | string | null | undefined, k: Decimal): Decimal | null {
   if (expandedPct === null || expandedPct === undefined) return null;
-  return dec(expandedPct).div(100).div(k);
+  const key = `${expandedPct.toString()}|${k.toString()}`;
+  let rel = relStdCache.get(key);
+  if (rel === undefined) {
+    if (relStdCache.size > 10_000) relStdCache.clear();
+    relStdCache.set(key, (rel = dec(expandedPct).div(100).div(k)));
+  }
+  return rel;
 }
 
 /** CO2 mass of an export/vent/stack stream: the measured tonnes, else kmol of CO2 × 44.009. */

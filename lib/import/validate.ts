@@ -1,4 +1,4 @@
-import { Dec } from "@/lib/balance/decimal";
+import { RecordDec as Dec } from "@/lib/balance/decimal";
 import { SUM_TOLERANCE_PCT } from "@/lib/balance/gas-properties";
 import { UNITS_BY_KIND } from "@/lib/balance/schema";
 import { UNITS, type Unit } from "@/lib/balance/units";
@@ -10,7 +10,7 @@ import type { ImportIssue, ImportSite, ImportStream, ImportWarning, MonthAnalysi
 
 type Cells = string[];
 interface Sum {
-  total: Dec;
+  total: InstanceType<typeof Dec>;
   unit: string;
   values: number;
   firstRow: number;

@@ -55,7 +55,7 @@ describe("the same plant in Sm3, Nm3, scf, t or GJ gives the same kmol", () => {
   it.each(forms)("feed written in %s", (unit, quantity) => {
     const doc = { ...base, streams: base.streams.map((s, i) => (i === 0 ? { ...feed, unit: unit as typeof feed.unit, quantity } : s)) };
     const r = calculate(doc, { reconcile: false });
-    same(r.streams[0].kmol, kmol, "1e-30");
+    same(r.streams[0].kmol, kmol, "1e-24"); // ~1e5 kmol at 34 significant digits
   });
 });
 

@@ -10,6 +10,7 @@ import { chiSquareCdf, chiSquareQuantile, gammaHalfInteger, normalTwoSided, regu
 
 const math = create(all) as MathJsInstance;
 const D = (rows: (string | number)[][]) => rows.map((r) => r.map((x) => new Dec(String(x))));
+// Tolerances are set by the engine's 34 significant digits (values here are below ~1000).
 const near = (x: Dec, expected: Dec | string, tol: string) => expect(x.minus(expected).abs().lte(tol), `${x} vs ${expected}`).toBe(true);
 
 describe("linear algebra in Decimal (hand-checked small cases)", () => {
@@ -50,10 +51,10 @@ describe("critical values in Decimal", () => {
   it("χ²₀.₉₅(2) = 2 ln 20 exactly (closed form for 2 dof)", () => near(chiSquareQuantile(dec("0.95"), 2), dec(20).ln().times(2), "1e-28"));
   it("two-sided normal 95 %: 1.959963984540054 (tables, from memory)", () => near(normalTwoSided(dec("0.95")), "1.959963984540054", "1e-14"));
   it("Γ(1/2) = √π, Γ(5) = 24; P(1, x) = 1 − e^−x; χ² cdf of 2 dof = 1 − e^(−x/2)", () => {
-    near(gammaHalfInteger(dec("0.5")), Dec.acos(-1).sqrt(), "1e-45");
+    near(gammaHalfInteger(dec("0.5")), Dec.acos(-1).sqrt(), "1e-32");
     expect(gammaHalfInteger(dec(5)).toFixed()).toBe("24");
-    near(regularizedLowerGamma(dec(1), dec("0.7")), dec(1).minus(dec("-0.7").exp()), "1e-40");
-    near(chiSquareCdf(dec(3), 2), dec(1).minus(dec("-1.5").exp()), "1e-40");
+    near(regularizedLowerGamma(dec(1), dec("0.7")), dec(1).minus(dec("-0.7").exp()), "1e-29");
+    near(chiSquareCdf(dec(3), 2), dec(1).minus(dec("-1.5").exp()), "1e-29");
   });
 });
 
@@ -65,8 +66,8 @@ describe("reconciliation: splitter/mixer network (textbook-style, own numbers, h
   const sol = reconcile({ A, B: [[], []], c: [dec(0), dec(0)], measured: D([[100.1, 64.2, 36.5, 99.5]])[0], sigma: D([[1, 0.7, 0.4, 1]])[0] });
   it("reconciled flows and χ² equal the hand solution", () => {
     const expected = [dec(11522).div(115), dec(73389).div(1150), dec(41831).div(1150), dec(11522).div(115)];
-    sol.reconciled.forEach((x, i) => near(x, expected[i], "1e-40"));
-    near(sol.chi2, dec(1017).div(1150), "1e-40");
+    sol.reconciled.forEach((x, i) => near(x, expected[i], "1e-29"));
+    near(sol.chi2, dec(1017).div(1150), "1e-29");
     expect(sol.dof).toBe(2);
     expect(sol.passed).toBe(true);
   });
@@ -79,9 +80,9 @@ describe("reconciliation: splitter/mixer network (textbook-style, own numbers, h
       A: D([[1, -1, 0], [0, 1, -1]]), B: D([[-1], [1]]), c: [dec(0), dec(0)],
       measured: D([[100.1, 64.2, 99.5]])[0], sigma: D([[1, 0.7, 1]])[0],
     });
-    near(s.reconciled[0], "99.8", "1e-40");
-    near(s.reconciled[2], "99.8", "1e-40");
-    near(s.unmeasured[0]!, "35.6", "1e-40");
+    near(s.reconciled[0], "99.8", "1e-29");
+    near(s.reconciled[2], "99.8", "1e-29");
+    near(s.unmeasured[0]!, "35.6", "1e-29");
     expect(s.redundancy).toEqual(["redundant", "non-redundant", "redundant"]);
     expect(s.testStatistic[1]).toBeNull();
   });
@@ -89,7 +90,7 @@ describe("reconciliation: splitter/mixer network (textbook-style, own numbers, h
     const s = reconcile({ A, B: [[], []], c: [dec(0), dec(0)], measured: D([[100.1, 64.2, 36.5, 99.5]])[0], sigma: D([[0, 0.7, 0.4, 1]])[0] });
     expect(s.reconciled[0].toFixed()).toBe("100.1");
     expect(s.redundancy[0]).toBe("exact");
-    near(s.reconciled[3], "100.1", "1e-40");
+    near(s.reconciled[3], "100.1", "1e-29");
   });
   it("a gross error is named: F4 reads 110", () => {
     const s = reconcile({ A, B: [[], []], c: [dec(0), dec(0)], measured: D([[100.1, 64.2, 36.5, 110]])[0], sigma: D([[1, 0.7, 0.4, 1]])[0] });

@@ -5,7 +5,7 @@ import type { AnalysisFigures, EmissionsInput, StreamFigures } from "../../../li
  * Hand-built plant-months (no lib/balance): round numbers so every expected value can be worked
  * out on paper. The gas is a synthetic natural gas: 0.75 kg C/kg, NCV 50 MJ/kg, GCV 55.5 MJ/kg.
  */
-/** Tests work at 50 digits like the engine; equality of derived values is checked to 12 places. */
+/** Tests work at 50 digits (more than the engine's 34, so the test side adds no rounding of its own); equality of derived values is checked to 12 places. */
 const D50 = Decimal.clone({ precision: 50 });
 export const d = (x: Decimal.Value): Decimal => new D50(x);
 export function same(a: Decimal | null | undefined, b: Decimal.Value, places = 12): boolean {
