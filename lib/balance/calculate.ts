@@ -51,9 +51,9 @@ export { CalculationInputError } from "./errors";
  * the reconciliation's covariance matrix singular even in 34 digits. That is bad input, reported
  * as such (the API answers 400, the month page names it), not a failure of the engine.
  */
-function reconcileOrExplain(flows: StreamFlow[], confidence: Dec): PlantReconciliation | null {
+function reconcileOrExplain(flows: StreamFlow[], confidence: Dec, measured: ElementBalances): PlantReconciliation | null {
   try {
-    return reconcilePlant(flows, confidence);
+    return reconcilePlant(flows, confidence, measured);
   } catch (e) {
     if (e instanceof Error && e.message === "singular matrix") {
       const i = farthestOrder(flows);
@@ -121,14 +121,15 @@ export function calculate(doc: PlantMonth, options: CalculateOptions = {}): Calc
   // A stream no meter measures gets its quantity from the reconciliation, so a month holding one is
   // reconciled even where the caller asked to skip it (the figures would be wrong otherwise).
   const reconcile = options.reconcile !== false || doc.streams.some(isUnmetered);
-  const reconciliation = reconcile ? reconcileOrExplain(measuredFlows, options.confidence ?? dec("0.95")) : null;
+  const measuredBalances = elementBalances(measuredFlows);
+  const reconciliation = reconcile ? reconcileOrExplain(measuredFlows, options.confidence ?? dec("0.95"), measuredBalances) : null;
   // A stream that is not metered takes the quantity the balances fix for it, everywhere after.
   const flows = measuredFlows.map((f, i) => {
     const solved = reconciliation?.unmeasured.find((u) => u.stream === f.stream.id)?.quantity;
     // A negative flow is no flow: the estimate stays and the reconciliation's flag says why.
     return solved && !solved.isNegative() ? streamFlow({ ...doc.streams[i], quantity: solved }, gases) : f;
   });
-  const balances = elementBalances(flows);
+  const balances = flows.every((f, i) => f === measuredFlows[i]) ? measuredBalances : elementBalances(flows);
   const feed = feedFigures(flows);
   const analyses = Object.fromEntries(Object.entries(gases).map(([id, g]) => [id, analysisFigures(id, g)]));
   const partial = {

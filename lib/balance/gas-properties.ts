@@ -49,13 +49,16 @@ export class CompositionError extends Error {
 
 /** Sum tolerance of an analysis, mol % (plant-month format). */
 export const SUM_TOLERANCE_PCT = dec("0.5");
+const HUNDREDTH = dec("0.01");
 
 export function gasProperties(pct: Composition): GasProperties {
   const entries = COMPONENTS.filter((c) => pct[c] !== undefined && !pct[c]!.isZero());
   const sumPct = sum(entries.map((c) => pct[c]!));
   if (sumPct.minus(HUNDRED).abs().gt(SUM_TOLERANCE_PCT)) throw new CompositionError(sumPct);
   const fractions: Composition = {};
-  for (const c of entries) fractions[c] = pct[c]!.div(sumPct);
+  // A composition summing to exactly 100 is scaled by 0.01 (the same exact value as ÷ 100, no long division).
+  const exact = sumPct.eq(HUNDRED);
+  for (const c of entries) fractions[c] = exact ? pct[c]!.times(HUNDREDTH) : pct[c]!.div(sumPct);
   const over = (f: (c: Component) => Dec) => sum(entries.map((c) => fractions[c]!.times(f(c))));
   // Atom counts are small integers; a component without the atom adds nothing, so it is skipped.
   const count = (atom: "C" | "H" | "N" | "O") =>
@@ -154,25 +157,48 @@ export function calorificValues(gas: GasProperties, metering: Reference, combust
   return memoGas(gas, `cv|${metering}|${combustion}`, () => workCalorificValues(gas, metering, combustion));
 }
 function workCalorificValues(gas: GasProperties, metering: Reference, combustion: Reference): CalorificValues {
-  const over = (f: (c: Component) => Dec) =>
-    sum(Object.entries(gas.fractions).map(([c, x]) => x.times(f(c as Component))));
-  const grossMolar = over((c) => componentGross(c, combustion));
-  const netMolar = over((c) => componentNet(c, combustion));
+  // The molar sums depend on the combustion reference only; the quotients are asked for one or two
+  // at a time, so each is divided when first read and kept (getters, enumerable like fields).
+  const { grossMolar, netMolar } = molarCalorificValues(gas, combustion);
   const z = compressibility(gas, metering);
   const vIdeal = idealMolarVolume(metering);
   const vReal = vIdeal.times(z);
+  const M = gas.molarMass;
+  const once = (f: () => Dec) => {
+    let v: Dec | undefined;
+    return () => (v ??= f());
+  };
+  const gvi = once(() => grossMolar.div(vIdeal));
+  const nvi = once(() => netMolar.div(vIdeal));
+  const gvr = once(() => grossMolar.div(vReal));
+  const nvr = once(() => netMolar.div(vReal));
+  const gm = once(() => (M.isZero() ? ZERO : grossMolar.div(M)));
+  const nm = once(() => (M.isZero() ? ZERO : netMolar.div(M)));
   return {
     grossMolar,
     netMolar,
     z,
     molarVolume: vReal,
-    grossVolumeIdeal: grossMolar.div(vIdeal),
-    netVolumeIdeal: netMolar.div(vIdeal),
-    grossVolumeReal: grossMolar.div(vReal),
-    netVolumeReal: netMolar.div(vReal),
-    grossMass: gas.molarMass.isZero() ? ZERO : grossMolar.div(gas.molarMass),
-    netMass: gas.molarMass.isZero() ? ZERO : netMolar.div(gas.molarMass),
+    get grossVolumeIdeal() { return gvi(); },
+    get netVolumeIdeal() { return nvi(); },
+    get grossVolumeReal() { return gvr(); },
+    get netVolumeReal() { return nvr(); },
+    get grossMass() { return gm(); },
+    get netMass() { return nm(); },
   };
+}
+
+/** Ideal molar gross and net CV of the mixture at a combustion reference, MJ/kmol. */
+function molarCalorificValues(gas: GasProperties, combustion: Reference): { grossMolar: Dec; netMolar: Dec } {
+  return memoGas(gas, `molar|${combustion}`, () => {
+    let grossMolar = ZERO;
+    let netMolar = ZERO;
+    for (const [c, x] of Object.entries(gas.fractions)) {
+      grossMolar = grossMolar.plus(x.times(componentGross(c as Component, combustion)));
+      netMolar = netMolar.plus(x.times(componentNet(c as Component, combustion)));
+    }
+    return { grossMolar, netMolar };
+  });
 }
 
 /** Composition (mol %) read from decimal strings, e.g. for constants. */

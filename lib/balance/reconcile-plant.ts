@@ -6,7 +6,7 @@
 // eliminated by projection, which makes the carbon balance non-redundant in that case. A stream
 // declared not metered ("metered": false) is an unmeasured flow too: the adjustment solves for
 // it instead of moving the metered flows to absorb it.
-import { BALANCE_NAMES, type BalanceName, balanceTerms, closure, elementBalances } from "./balances";
+import { BALANCE_NAMES, type BalanceName, type ElementBalances, balanceTerms, closure, elementBalances } from "./balances";
 import { Dec, HUNDRED, ZERO, dec } from "./decimal";
 import { reconcile, type Redundancy } from "./reconcile";
 import { isUnmetered } from "./schema";
@@ -58,13 +58,23 @@ export interface PlantReconciliation {
   flags: Flag[];
 }
 
+const sigmaPerPct = new Map<string, Dec>();
+
+/** σ = u% ÷ 100 ÷ 1.96 × quantity; the quotient of each stated uncertainty is worked out once. */
 export function sigmaOf(flow: StreamFlow): Dec {
   const u = flow.stream.uncertainty_pct;
-  return u ? u.div(HUNDRED).div(COVERAGE_95).times(flow.stream.quantity) : ZERO;
+  if (!u) return ZERO;
+  const key = u.toString();
+  let rel = sigmaPerPct.get(key);
+  if (rel === undefined) {
+    if (sigmaPerPct.size > 10_000) sigmaPerPct.clear();
+    sigmaPerPct.set(key, (rel = u.div(HUNDRED).div(COVERAGE_95)));
+  }
+  return rel.times(flow.stream.quantity);
 }
 
-export function reconcilePlant(flows: StreamFlow[], confidence = dec("0.95")): PlantReconciliation | null {
-  const measured = elementBalances(flows);
+/** `measured`: the flows' element balances when the caller has them already (they are the same figures). */
+export function reconcilePlant(flows: StreamFlow[], confidence = dec("0.95"), measured: ElementBalances = elementBalances(flows)): PlantReconciliation | null {
   const constraints = BALANCE_NAMES.filter((b) => measured.closable[b]);
   if (constraints.length === 0) return null;
   const terms = flows.map(balanceTerms);
