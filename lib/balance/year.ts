@@ -1,7 +1,10 @@
 // Annual roll-up of several plant-month files of one site: each month is calculated as the
 // month CLI would, then lib/emissions' rollUpYear adds them with the annual uncertainty model
 // (factor part correlated across months, meter part independent).
-import { YEAR_CORRELATION, rollUpYear, type YearResult } from "../emissions/year";
+import { YEAR_CORRELATION, rollUpYear, type YearMonthEntry, type YearResult } from "../emissions/year";
+import { embeddedEmissions, CBAM_GOOD, type CbamFigures } from "../emissions/cbam";
+import { etsBenchmark, monitoringCheck, type EtsBenchmark, type MonitoringCheck } from "../emissions/eu-ets";
+import { EU_MRR } from "../emissions/factor-sets/eu-mrr";
 import type { CalculationResult } from "./calculate";
 import { num } from "./decimal";
 import { uncertaintyJson } from "./result-emissions";
@@ -22,6 +25,10 @@ export interface YearRollUp {
   year: YearResult;
   /** Month warnings and errors carried up, prefixed with their month so none is lost in the total. */
   flags: Flag[];
+  /** EU emissions trading monitoring check and CBAM embedded emissions of the months given (issue 14). */
+  euEts: MonitoringCheck;
+  etsBenchmark: EtsBenchmark | null;
+  cbam: CbamFigures;
 }
 
 /** Why a set of files cannot make one year: the offending file and the JSON path, or null when they can. */
@@ -43,11 +50,16 @@ export function yearInputProblem(months: LoadedMonth[]): { file: string; path: s
 
 export function rollUp(months: LoadedMonth[]): YearRollUp {
   const sorted = [...months].sort((a, b) => a.doc.month.localeCompare(b.doc.month));
-  const year = rollUpYear(sorted.map((m) => ({ month: m.doc.month, input: m.result.emissions.input, result: m.result.emissions.detail })));
+  const entries: YearMonthEntry[] = sorted.map((m) => ({ month: m.doc.month, input: m.result.emissions.input, result: m.result.emissions.detail }));
+  const year = rollUpYear(entries);
+  const euEts = monitoringCheck(entries);
   const monthFlags = sorted.flatMap((m) =>
     m.result.flags.filter((f) => f.severity !== "info").map((f) => ({ code: f.code, severity: f.severity, message: `${m.doc.month}: ${f.message}` })),
   );
-  return { site: sorted[0].doc.site, files: sorted, year, flags: [...year.flags, ...monthFlags] };
+  return {
+    site: sorted[0].doc.site, files: sorted, year, flags: [...year.flags, ...euEts.flags, ...monthFlags], euEts,
+    etsBenchmark: etsBenchmark(year.year, EU_MRR.benchmarks, year.emissions.co2e_t, year.ammonia_t), cbam: embeddedEmissions(entries),
+  };
 }
 
 export function toYearDocument(y: YearRollUp) {
@@ -92,6 +104,50 @@ export function toYearDocument(y: YearRollUp) {
       co2e: uncertaintyJson(r.uncertainty.co2e),
       net_co2e: uncertaintyJson(r.uncertainty.net_co2e),
     },
+    eu_ets: euEtsJson(y.euEts, y.etsBenchmark),
+    cbam: cbamJson(y.cbam),
     flags: y.flags,
+  };
+}
+
+export function euEtsJson(c: MonitoringCheck, b: EtsBenchmark | null) {
+  return {
+    installation_category: c.installation_category,
+    emissions_t: num(c.emissions_t),
+    materiality_threshold_pct: num(c.materiality_threshold_pct),
+    materiality_threshold_t: num(c.materiality_threshold_t),
+    source_streams: c.source_streams.map((s) => ({
+      id: s.id, kind: s.kind, class: s.class, emissions_t: num(s.emissions_t), share_pct: num(s.share_pct),
+      tier_required: s.tier_required, tier_achieved: s.tier_achieved, tier_with_approval: s.tier_with_approval,
+      uncertainty_pct: num(s.uncertainty_pct), uncertainty_needed_pct: num(s.uncertainty_needed_pct),
+      factor_origin: s.factor_origin, factor_tier_achieved: s.factor_tier_achieved, factor_tier_required: s.factor_tier_required, rule: s.rule,
+    })),
+    benchmark: b
+      ? { id: b.id, label: b.label, value: num(b.value), unit: b.unit, source: b.source, status: b.status,
+          intensity_t_per_t: num(b.intensity_t_per_t), difference_pct: num(b.difference_pct) }
+      : null,
+    benchmark_note: b ? null : "no EU ammonia benchmark is shown for this year: the act setting the 2026–2030 value was not found, so none is given",
+    notes: c.notes,
+    rules: c.rules,
+  };
+}
+
+export function cbamJson(c: CbamFigures) {
+  return {
+    good: CBAM_GOOD,
+    period: c.period,
+    production_t: num(c.production_t),
+    direct_t: num(c.direct_t),
+    direct_deducted_t: num(c.direct_deducted_t),
+    urea_co2_t: num(c.urea_co2_t),
+    electricity_mwh: num(c.electricity_mwh),
+    electricity_mwh_with_factor: num(c.electricity_mwh_with_factor),
+    electricity_factor_t_per_mwh: num(c.electricity_factor_t_per_mwh),
+    indirect_t: num(c.indirect_t),
+    indirect_complete: c.indirect_complete,
+    see_direct_t_per_t: num(c.see_direct_t_per_t),
+    see_indirect_t_per_t: num(c.see_indirect_t_per_t),
+    see_total_t_per_t: num(c.see_total_t_per_t),
+    precursors: c.precursors,
   };
 }
