@@ -1,8 +1,8 @@
-import { Document, Page, Text } from "@react-pdf/renderer";
-import type { AnnualMonthRow, AnnualSourceRow, AnnualStatementModel } from "./model";
+import { Document, Page, Text, View } from "@react-pdf/renderer";
+import type { AnnualMonthRow, AnnualSourceRow, AnnualStatementModel, EuEtsSection } from "./model";
 import { CautionsBlock, DeclarationBlock, FlagsBlock, GasTable, InstallationBlock, IntensityBlock, MethodBlock, RevisionsBlock, UncertaintyBlock } from "./parts/blocks";
 import { Footer, RunningHead, TitleBlock } from "./parts/frame";
-import { DataTable, Section } from "./parts/primitives";
+import { DataTable, KeyValues, Section } from "./parts/primitives";
 import { styles } from "./parts/theme";
 
 type YearRow = Omit<AnnualMonthRow, "month" | "revision" | "status"> & Partial<Pick<AnnualMonthRow, "month" | "revision" | "status">>;
@@ -70,8 +70,42 @@ export function AnnualStatement({ model: m }: { model: AnnualStatementModel }) {
         <UncertaintyBlock n="6" rows={m.uncertainty} title="Combined uncertainty (95 % confidence)" />
         <FlagsBlock n="7" rows={m.flags} />
         <RevisionsBlock n="8" rows={m.revisions} />
+        {m.euEts ? <EuEtsBlock n="9" e={m.euEts} /> : null}
         <CautionsBlock items={m.cautions} />
       </Page>
     </Document>
+  );
+}
+
+/** EU trading-system monitoring check and CBAM embedded emissions: an indication for the monitoring plan and for importers. */
+function EuEtsBlock({ n, e }: { n: string; e: EuEtsSection }) {
+  return (
+    <Section n={n} title="EU emissions trading monitoring check and CBAM embedded emissions" breakBefore>
+      <KeyValues items={e.facts} keyWidth={120} />
+      <DataTable<EuEtsSection["streams"][number]>
+        columns={[
+          { title: "Source stream", flex: 1.6, cell: (r) => r.id },
+          { title: "Class", flex: 1.1, cell: (r) => r.cls },
+          { title: "CO2e (t)", flex: 1.3, numeric: true, cell: (r) => r.co2e },
+          { title: "Share (%)", flex: 1, numeric: true, cell: (r) => r.share },
+          { title: "Meter, year (%)", flex: 1.3, numeric: true, cell: (r) => r.uncertainty },
+          { title: "Activity tier", flex: 1.2, cell: (r) => r.tier },
+          { title: "Factors", flex: 2, cell: (r) => r.factors },
+        ]}
+        rows={e.streams}
+        empty="No source stream this year."
+      />
+      {e.shortfalls.length ? (
+        <View style={{ marginTop: 3 }}>
+          {e.shortfalls.map((s, i) => <Text key={i} style={styles.small}>Shortfall: {s}</Text>)}
+        </View>
+      ) : (
+        <Text style={[styles.small, { marginTop: 3 }]}>Every source stream meets the tiers its category and class require.</Text>
+      )}
+      <View style={{ marginTop: 5 }}>
+        <KeyValues items={e.cbam} keyWidth={120} />
+      </View>
+      {e.notes.map((x, i) => <Text key={i} style={[styles.small, styles.muted]}>{x}</Text>)}
+    </Section>
   );
 }

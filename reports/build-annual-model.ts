@@ -7,13 +7,13 @@ import { num } from "@/lib/balance/decimal";
 import { toResultDocument } from "@/lib/balance/result";
 import { uncertaintyJson } from "@/lib/balance/result-emissions";
 import { YEAR_CORRELATION, type YearResult } from "@/lib/emissions/year";
-import { endedRuns, type MonthRun, type YearBenchmark } from "@/lib/ledger/year";
+import { endedRuns, yearEuEtsAndCbam, type MonthRun, type YearBenchmark } from "@/lib/ledger/year";
 import { hasEnded } from "@/lib/period";
 import type { InstallationIdentity } from "@/lib/validations/installation";
 import { declarationText, installationFacts } from "@/reports/build-model";
 import { flagRows, meteringLabel, methodSection, revisionRows, uncertaintyRow, unconfirmedRows, type RevisionFact } from "@/reports/build-model-parts";
 import { DASH, compare, fixed, monthLabel, percentOver, small, utcStamp } from "@/reports/format";
-import { STATEMENT_CAUTIONS, type AnnualStatementModel, type GasRow, type IntensityRow } from "@/reports/model";
+import { STATEMENT_CAUTIONS, type AnnualStatementModel, type EuEtsSection, type GasRow, type IntensityRow } from "@/reports/model";
 
 const STATE_LABEL: Record<string, string> = { open: "Open", balanced: "Balanced", in_review: "In review", signed: "Signed", submitted: "Submitted" };
 
@@ -146,6 +146,7 @@ export function buildAnnualModel(input: AnnualModelInput): AnnualStatementModel 
     revisions: revisionRows(input.revisions),
     cautions: [...STATEMENT_CAUTIONS],
     unconfirmedCount: unconfirmedRows(first).length,
+    euEts: euEtsSection(input.year, input.runs, now),
     signOff: {
       signer: input.signOff.signer,
       role: input.signOff.role,
@@ -169,5 +170,41 @@ export function annualSummary(y: YearResult): Record<string, string> {
     intensity: `${fixed(num(y.intensity.co2e_t_per_t_nh3), 3)} t CO2e/t NH3`,
     uncertainty: `± ${fixed(num(y.uncertainty.co2.u95_pct), 2)} % (95 %)`,
     months: `${y.months_included.length}`,
+  };
+}
+
+const CLASS_LABEL: Record<string, string> = { major: "major", minor: "minor", "de-minimis": "de minimis" };
+
+/** The EU trading-system and CBAM section of the annual statement, as display text. */
+export function euEtsSection(year: string, runs: AnnualModelInput["runs"], now: Date): EuEtsSection | null {
+  const f = yearEuEtsAndCbam(year, runs, now);
+  if (!f) return null;
+  const e = f.euEts;
+  const c = f.cbam;
+  const b = e.benchmark;
+  return {
+    facts: [
+      ["Installation category", `${e.installation_category} (Reg. (EU) 2018/2066 Art 19(2); from ${fixed(e.emissions_t, 0)} t CO2e this year)`],
+      ["Materiality level", `${e.materiality_threshold_pct} % = ${fixed(e.materiality_threshold_t, 0)} t CO2e (Reg. (EU) 2018/2067 Art 23)`],
+      ["EU ammonia benchmark", b ? `${b.value} ${b.unit} (${b.source}${b.status === "unconfirmed" ? ", unconfirmed" : ""}); this year ${fixed(b.intensity_t_per_t, 3)} t CO2e/t NH3, CO2 to urea counted as emitted` : e.benchmark_note ?? DASH],
+    ],
+    streams: e.source_streams.map((s) => ({
+      id: s.id,
+      cls: CLASS_LABEL[s.class] ?? s.class,
+      co2e: fixed(s.emissions_t, 0),
+      share: fixed(s.share_pct, 2),
+      uncertainty: s.uncertainty_pct === null ? DASH : `± ${fixed(s.uncertainty_pct, 2)}`,
+      tier: s.tier_required === null ? "none needed" : `${s.tier_achieved ?? DASH} of ${s.tier_required}`,
+      factors: `${s.factor_origin === "analysis" ? "analysis" : "default"}, tier ${s.factor_tier_achieved}${s.factor_tier_required === null ? "" : ` of ${s.factor_tier_required === 2 ? "2a/2b" : s.factor_tier_required}`}`,
+    })),
+    shortfalls: f.flags.map((x) => x.message),
+    cbam: [
+      ["Good", `${c.good.description}, CN ${c.good.cn_code} (unconfirmed); ${c.good.route.toLowerCase()}`],
+      ["Ammonia produced", `${fixed(c.production_t, 1)} t NH3`],
+      ["Direct embedded", `${fixed(c.see_direct_t_per_t, 4)} t CO2e/t NH3 (${fixed(c.direct_t, 0)} t CO2e; CO2 to urea counted, storage deducted)`],
+      ["Indirect embedded", c.see_indirect_t_per_t === null ? "not computed: a month's electricity has no emission factor" : `${fixed(c.see_indirect_t_per_t, 4)} t CO2e/t NH3 (${fixed(c.electricity_mwh, 0)} MWh × factor)`],
+      ["Embedded, total", c.see_total_t_per_t === null ? DASH : `${fixed(c.see_total_t_per_t, 4)} t CO2e/t NH3`],
+    ],
+    notes: [...e.notes, "Tiers: Annex II Table 1 (gaseous fuels): tier 4 ±1.5 %, 3 ±2.5 %, 2 ±5 %, 1 ±7.5 % over the year; the calculation-factor tier rule is unconfirmed.", "CBAM: Reg. (EU) 2023/956 Annex IV; the CN code, fertilisers' indirect emissions and the definitive period's rules are unconfirmed."],
   };
 }

@@ -285,6 +285,16 @@ export interface AnnualStatementModel {
   /** How many cited values the signatory acknowledged as unconfirmed. */
   unconfirmedCount: number;
   signOff: SignOff;
+  /** EU trading-system monitoring check and CBAM embedded emissions of the year (issue 14); absent on statements signed before. */
+  euEts?: EuEtsSection | null;
+}
+
+export interface EuEtsSection {
+  facts: [string, string][];
+  streams: { id: string; cls: string; co2e: string; share: string; uncertainty: string; tier: string; factors: string }[];
+  shortfalls: string[];
+  cbam: [string, string][];
+  notes: string[];
 }
 
 /** The product's standing cautions (BRIEF.md), printed on every statement. */

@@ -17,6 +17,22 @@ const csvUpload = upload({ mapping: { type: "string", description: "column mappi
 const year = [params.siteId, { name: "year", in: "path", required: true, description: "calendar year YYYY", schema: { type: "string", pattern: "^\\d{4}$" } }];
 
 export const otherPaths = {
+  "/api/v1/sites/{siteId}/embedded-emissions": {
+    get: {
+      summary: "Embedded emissions of the site's ammonia for a period, as the communication to importers (synledger.cbam-communication/1); by default this year's ended months",
+      description: "Schema: /api/v1/schemas/cbam-communication.json. A month not yet ended is refused (400 naming `to`).",
+      parameters: [
+        ...site,
+        { name: "from", in: "query", description: "first month YYYY-MM", schema: { type: "string", pattern: "^\\d{4}-\\d{2}$" } },
+        { name: "to", in: "query", description: "last month YYYY-MM (ended)", schema: { type: "string", pattern: "^\\d{4}-\\d{2}$" } },
+        { name: "shipped_t", in: "query", description: "a shipped quantity, t NH3, to state its embedded emissions", schema: { type: "string" } },
+      ],
+      responses: responses(json({ $ref: "/api/v1/schemas/cbam-communication.json" }), ["400", "401", "403", "404"]),
+    },
+  },
+  "/api/v1/schemas/cbam-communication.json": {
+    get: { summary: "JSON Schema of synledger.cbam-communication/1 (public; generated from the schema the API answers with)", security: [], responses: { "200": json({ type: "object" }) } },
+  },
   "/api/v1/sites/{siteId}/years/{year}/series": {
     get: {
       summary: "Twelve months of the year as computed by the engine: production, intensities, energy, closures, H2:N2, suspect meters (nulls for months not started)",

@@ -10,6 +10,10 @@ import { parsePlantMonth, type InputIssue } from "@/lib/balance/schema";
 import { BUILT_IN_FACTOR_SETS } from "@/lib/emissions/registry";
 import { rollUpYear, type YearResult } from "@/lib/emissions/year";
 import { hasEnded } from "@/lib/period";
+import { cbamJson, euEtsJson } from "@/lib/balance/year";
+import { embeddedEmissions } from "@/lib/emissions/cbam";
+import { etsBenchmark, monitoringCheck } from "@/lib/emissions/eu-ets";
+import { EU_MRR } from "@/lib/emissions/factor-sets/eu-mrr";
 
 export type MonthStateName = "open" | "balanced" | "in_review" | "signed" | "submitted";
 
@@ -178,4 +182,18 @@ export function annualReadiness(year: string, runs: readonly Pick<MonthRun, "per
   const stateOf = new Map(runs.map((r) => [r.period, r.state]));
   const waiting = monthsOfYear(year).filter((m) => stateOf.get(m) !== "signed" && stateOf.get(m) !== "submitted");
   return { ready: waiting.length === 0, waiting };
+}
+
+/**
+ * The EU trading-system monitoring check and the CBAM figures of the year's ended months that
+ * compute, in the year document's JSON form (decimal strings); null when no month computes.
+ */
+export function yearEuEtsAndCbam(year: string, runs: readonly MonthRun[], now = new Date()) {
+  const ok = endedRuns(runs, now).filter((r): r is MonthRun & { result: CalculationResult } => r.result !== null);
+  if (ok.length === 0) return null;
+  const entries = ok.map((r) => ({ month: r.period, input: r.result.emissions.input, result: r.result.emissions.detail }));
+  const check = monitoringCheck(entries);
+  const co2e = entries.reduce((a, e) => a.plus(e.result.emissions.co2e_t), ZERO);
+  const nh3 = entries.reduce((a, e) => a.plus(new Dec(e.input.ammonia_t.toString())), ZERO);
+  return { euEts: euEtsJson(check, etsBenchmark(year, EU_MRR.benchmarks, co2e, nh3)), cbam: cbamJson(embeddedEmissions(entries)), flags: check.flags };
 }

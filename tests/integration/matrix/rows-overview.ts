@@ -18,6 +18,14 @@ export const overviewRows: MatrixRow[] = [
     call: async (c) => (await import("@/app/api/v1/sites/[siteId]/years/[year]/export/route")).GET(req("http://matrix/?format=csv"), params(year(c))),
   },
   {
+    // The fixture site has no months: the communication of an empty period is still an answer.
+    id: "GET /api/v1/sites/[siteId]/embedded-emissions",
+    allowed: ROLES,
+    call: async ({ target }) =>
+      (await import("@/app/api/v1/sites/[siteId]/embedded-emissions/route")).GET(req("http://matrix/?from=2026-01&to=2026-03"), params({ siteId: target.siteId })),
+  },
+  { id: "GET /api/v1/schemas/cbam-communication.json", allowed: "public", call: async () => (await import("@/app/api/v1/schemas/cbam-communication.json/route")).GET() },
+  {
     // The fixture site has no months, so the signatory's call is refused for that reason: past the gate.
     id: "app/(app)/sites/[siteId]/years/[year]/actions.ts#signAnnualStatementAction",
     allowed: ["signatory"],

@@ -19,7 +19,8 @@ import { listStatements } from "@/db/queries/statements";
 import { can, requirePageActor } from "@/lib/auth/guard";
 import { isYearKey } from "@/lib/period";
 import { monthSourcesOf } from "@/lib/lifecycle/sign-annual";
-import { annualReadiness, endedRuns, rollUpRuns, yearBenchmarks, yearBySource, yearTheoreticalMinimum } from "@/lib/ledger/year";
+import { annualReadiness, endedRuns, rollUpRuns, yearBenchmarks, yearBySource, yearEuEtsAndCbam, yearTheoreticalMinimum } from "@/lib/ledger/year";
+import { CbamFigures, EuEtsCheck } from "@/components/overview/eu-ets-cbam";
 import { KIND_LABELS } from "@/reports/build-model-parts";
 import { fixed, small, utcStamp } from "@/reports/format";
 import { signAnnualStatementAction } from "./actions";
@@ -78,6 +79,7 @@ export default async function YearPage({ params }: { params: Promise<Params> }) 
   const names = new Map(y.streams.map((s) => [s.key, s.name]));
   const recordedSets = [...new Set(series.months.flatMap((m) => (m.method ? [m.method.factor_set] : [])))];
   const exportBase = `/api/v1/sites/${y.site.id}/years/${year}/export`;
+  const euCbam = yearEuEtsAndCbam(year, y.runs);
 
   return (
     <div className="space-y-7">
@@ -128,6 +130,16 @@ export default async function YearPage({ params }: { params: Promise<Params> }) 
       <Section id="intensities" title="Intensity against benchmarks">
         <YearIntensities model={model} />
       </Section>
+      {euCbam ? (
+        <>
+          <Section id="eu-ets" title="EU emissions trading: monitoring check" note="Reg. (EU) 2018/2066 (categories, source streams, tiers) and 2018/2067 (materiality), from the year's ended months.">
+            <EuEtsCheck figures={euCbam} />
+          </Section>
+          <Section id="cbam" title="CBAM embedded emissions" note="Reg. (EU) 2023/956 Annex IV: direct and indirect emissions per tonne of ammonia produced.">
+            <CbamFigures figures={euCbam} siteId={y.site.id} from={euCbam.cbam.period.from} to={euCbam.cbam.period.to} />
+          </Section>
+        </>
+      ) : null}
       <Section id="annual" title="Annual statement">
         {annual.length ? (
           <ul className="space-y-1 text-sm">
