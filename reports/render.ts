@@ -4,6 +4,7 @@ import { AnnualStatement } from "./annual-statement";
 import { registerStatementFonts } from "./fonts";
 import type { AnnualStatementModel, MonthlyStatementModel } from "./model";
 import { MonthlyStatement } from "./monthly-statement";
+import { CommunicationStatement, type CommunicationModel } from "./cbam-communication";
 
 /** Unsigned statement PDFs; lib/signing seals them. Server-side only (reads fonts from disk). */
 export async function renderMonthlyStatement(model: MonthlyStatementModel): Promise<Buffer> {
@@ -14,4 +15,9 @@ export async function renderMonthlyStatement(model: MonthlyStatementModel): Prom
 export async function renderAnnualStatement(model: AnnualStatementModel): Promise<Buffer> {
   registerStatementFonts();
   return renderToBuffer(createElement(AnnualStatement, { model }) as unknown as ReactElement<DocumentProps>);
+}
+
+export async function renderCommunication(model: CommunicationModel): Promise<Buffer> {
+  registerStatementFonts();
+  return renderToBuffer(createElement(CommunicationStatement, { model }) as unknown as ReactElement<DocumentProps>);
 }

@@ -134,7 +134,8 @@ export function CbamFigures({ figures, siteId, from, to }: { figures: Figures; s
         {c.indirect_complete ? <> = <span className="num">{fixed(c.indirect_t, 0)} t CO2</span></> : " — a month's electricity has no emission factor, so none is given"}.
       </p>
       <p className="text-sm">
-        Communication to importers: <a className={link} href={api}>JSON ({from} to {to})</a> ·{" "}
+        Communication to importers:{" "}
+        <a className={link} href={`/sites/${siteId}/embedded-emissions?from=${from}&to=${to}`}>prepare and sign it</a> · <a className={link} href={api}>draft JSON ({from} to {to})</a> ·{" "}
         <a className={link} href="/api/v1/schemas/cbam-communication.json">its JSON Schema</a>. Another period or a shipped quantity:{" "}
         <span className="num">?from=YYYY-MM&amp;to=YYYY-MM&amp;shipped_t=…</span>
       </p>

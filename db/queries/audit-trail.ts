@@ -105,7 +105,7 @@ export async function auditRecordLabels(db: Db | Tx, organisationId: string, row
           .from(statements)
           .innerJoin(sites, eq(sites.id, statements.siteId))
           .where(and(inArray(statements.id, l), eq(statements.organisationId, organisationId)))
-      ).map((s) => ({ id: s.id, label: `${s.kind === "annual" ? "Annual" : "Monthly"} statement, ${s.site} · ${s.kind === "annual" ? s.period : monthWords(s.period)}, revision ${s.revision}` })),
+      ).map((s) => ({ id: s.id, label: `${s.kind === "annual" ? "Annual statement" : s.kind === "cbam" ? "Embedded-emissions communication" : "Monthly statement"}, ${s.site} · ${s.kind === "monthly" ? monthWords(s.period) : s.period}, revision ${s.revision}` })),
     ),
     byId("user", async (l) => (await db.select({ id: users.id, label: users.name }).from(users).where(inArray(users.id, l)))),
     byId("membership", async (l) => {

@@ -26,7 +26,7 @@ export const bytea = customType<{ data: Buffer; driverData: Buffer }>({
   fromDriver: (value) => (Buffer.isBuffer(value) ? value : Buffer.from(value as Uint8Array)),
 });
 
-export const statementKindEnum = pgEnum("statement_kind", ["monthly", "annual"]);
+export const statementKindEnum = pgEnum("statement_kind", ["monthly", "annual", "cbam"]);
 export const mailStatusEnum = pgEnum("mail_status", ["pending", "sent", "failed"]);
 
 /**
@@ -77,7 +77,7 @@ export const statements = pgTable(
       .notNull()
       .references(() => sites.id, { onDelete: "restrict" }),
     kind: statementKindEnum("kind").notNull(),
-    /** "YYYY-MM" for monthly, "YYYY" for annual statements. */
+    /** "YYYY-MM" for monthly, "YYYY" for annual statements, "YYYY-MM..YYYY-MM" for communications of embedded emissions (cbam). */
     period: text("period").notNull(),
     monthId: uuid("month_id").references(() => months.id, { onDelete: "restrict" }),
     /** The frozen month the monthly statement was rendered from (null for annual statements and those signed before snapshots). */
@@ -107,7 +107,8 @@ export const statements = pgTable(
     check("statements_revision_positive", sql`${t.revision} >= 1`),
     check(
       "statements_period_format",
-      sql`(${t.kind} = 'monthly' AND ${t.period} ~ '^[0-9]{4}-(0[1-9]|1[0-2])$') OR (${t.kind} = 'annual' AND ${t.period} ~ '^[0-9]{4}$')`,
+      // kind compared as text: a value added to the enum cannot be used as a literal in the migration that adds it.
+      sql`(${t.kind}::text = 'monthly' AND ${t.period} ~ '^[0-9]{4}-(0[1-9]|1[0-2])$') OR (${t.kind}::text = 'annual' AND ${t.period} ~ '^[0-9]{4}$') OR (${t.kind}::text = 'cbam' AND ${t.period} ~ '^[0-9]{4}-(0[1-9]|1[0-2])[.][.][0-9]{4}-(0[1-9]|1[0-2])$')`,
     ),
   ],
 );

@@ -30,6 +30,13 @@ export const otherPaths = {
       responses: responses(json({ $ref: "/api/v1/schemas/cbam-communication.json" }), ["400", "401", "403", "404"]),
     },
   },
+  "/api/v1/statements/{id}/document": {
+    get: {
+      summary: "The machine-readable communication of embedded emissions a signed communication carries inside its PDF, as signed",
+      parameters: [idParam("id", "statement id (the reference printed in the PDF)")],
+      responses: responses(json({ $ref: "/api/v1/schemas/cbam-communication.json" }), ["401", "403", "404"]),
+    },
+  },
   "/api/v1/schemas/cbam-communication.json": {
     get: { summary: "JSON Schema of synledger.cbam-communication/1 (public; generated from the schema the API answers with)", security: [], responses: { "200": json({ type: "object" }) } },
   },

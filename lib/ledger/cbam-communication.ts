@@ -11,6 +11,8 @@ import { CBAM_GOOD, CBAM_RULES, embeddedEmissions } from "@/lib/emissions/cbam";
 import type { YearMonthEntry } from "@/lib/emissions/year";
 import { D } from "@/lib/emissions/decimal";
 import type { InstallationIdentity } from "@/lib/validations/installation";
+import { quoted } from "@/lib/auth/errors";
+import { currentMonthKey, isMonthKey, previousMonth } from "@/lib/period";
 import type { MonthRun } from "./year";
 
 export const CBAM_COMMUNICATION_FORMAT = "synledger.cbam-communication/1";
@@ -164,4 +166,26 @@ export function buildCommunication(i: CommunicationInput): CbamCommunication {
       "No precursor is counted: the plant-month format has no stream for bought-in hydrogen.",
     ],
   };
+}
+
+const MAX_MONTHS = 36;
+
+export type PeriodCheck = { ok: true; from: string; to: string; shippedT: string | null } | { ok: false; path: "from" | "to" | "shipped_t"; message: string };
+
+/**
+ * The period and shipped quantity of a communication, as the API and the signing form take them:
+ * by default this calendar year's ended months; never a month that has not ended; at most 36 months.
+ */
+export function communicationPeriod(fromRaw: string | null, toRaw: string | null, shipped: string | null, now = new Date()): PeriodCheck {
+  const lastEnded = previousMonth(currentMonthKey(now));
+  const from = fromRaw || `${lastEnded.slice(0, 4)}-01`;
+  const to = toRaw || lastEnded;
+  const bad = (path: "from" | "to" | "shipped_t", message: string): PeriodCheck => ({ ok: false, path, message });
+  if (!isMonthKey(from)) return bad("from", `${quoted(from)} is not a month; write it as YYYY-MM`);
+  if (!isMonthKey(to)) return bad("to", `${quoted(to)} is not a month; write it as YYYY-MM`);
+  if (from > to) return bad("to", `${to} is before from (${from})`);
+  if (to > lastEnded) return bad("to", `${to} has not ended; the last ended month is ${lastEnded}`);
+  if (monthsBetween(from, to).length > MAX_MONTHS) return bad("to", `at most ${MAX_MONTHS} months at a time`);
+  if (shipped !== null && !/^\d{1,12}(\.\d{1,6})?$/.test(shipped)) return bad("shipped_t", "a quantity in tonnes, e.g. 25000 or 25000.5");
+  return { ok: true, from, to, shippedT: shipped };
 }

@@ -8,7 +8,8 @@
 import type { StatementSummary } from "@/db/queries/statements";
 import { verifyUrl } from "@/lib/signing/public-url";
 import type { Verification } from "@/lib/signing/verify";
-import { monthLabel, utcStamp } from "@/reports/format";
+import { periodLabelOf } from "@/lib/statement-kind";
+import { utcStamp } from "@/reports/format";
 
 /** Key figures as the statement prints them, in its order. */
 const FIGURE_LABELS: Record<string, string> = {
@@ -34,7 +35,7 @@ export interface PublicStatementFacts {
   operator: string | null;
   /** "EU ETS permit NM-GHG-0417; …", as frozen when the statement was signed. */
   identifiers: string | null;
-  kind: "monthly" | "annual";
+  kind: "monthly" | "annual" | "cbam";
   period: string;
   periodLabel: string;
   revision: number;
@@ -67,7 +68,7 @@ export function publicFacts(s: StatementSummary): PublicStatementFacts {
     identifiers: summary.identifiers ?? null,
     kind: s.kind,
     period: s.period,
-    periodLabel: s.kind === "monthly" ? monthLabel(s.period) : `Calendar year ${s.period}`,
+    periodLabel: periodLabelOf(s.kind, s.period),
     revision: s.revision,
     signer: s.signerName,
     signerRole: s.signerRole,
@@ -131,3 +132,4 @@ export function verificationAnswer(v: Verification): VerificationAnswer {
     supersededBy: null,
   };
 }
+

@@ -81,7 +81,7 @@ export function signOffFacts(signer: string, ctx: SigningContext) {
 export interface IssueInput {
   organisationId: string;
   siteId: string;
-  kind: "monthly" | "annual";
+  kind: "monthly" | "annual" | "cbam";
   period: string;
   monthId?: string | null;
   /** The month's revision (life cycle); the unique key refuses a second statement with the same one. */

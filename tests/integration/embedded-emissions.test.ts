@@ -16,6 +16,11 @@ import { hasEnded } from "@/lib/period";
 import { closeTestDb, testDb } from "../support/db";
 import { createOrg, type FixtureOrg } from "../support/fixtures";
 import { actAs } from "../support/mock-auth";
+import { createDemoCertificate } from "@/lib/signing/demo-certificate";
+import { registerCertificate } from "@/lib/signing/issue";
+import { verifyStatementPdf } from "@/lib/signing/verify";
+import { statements } from "@/db/schema";
+import { and } from "drizzle-orm";
 import { ctx, errorOf, request } from "./api-support";
 
 vi.mock("@/auth", () => import("../support/mock-auth"));
@@ -33,6 +38,10 @@ beforeAll(async () => {
   org = await createOrg(db, "Cbam");
   other = await createOrg(db, "Importer");
   await db.transaction((tx) => seedDemoSites(tx, org.id));
+  process.env.SIGNING_SECRET ??= "integration-test-signing-secret-0123456789";
+  const admin = org.members.administrator;
+  const demo = createDemoCertificate({ commonName: "Cbam test communications", organisation: org.name, bits: 2048 });
+  await registerCertificate(db, { organisationId: org.id, label: "Demo", ...demo, activate: true, actor: { userId: admin.id, name: admin.name } });
   estuaryId = (await db.select().from(sites).where(eq(sites.organisationId, org.id))).find((s) => s.code === "estuary")!.id;
 });
 
@@ -76,4 +85,46 @@ describe("embedded emissions of the demo's Estuary Works, 2026-01..2026-06", () 
     actAs(null);
     expect((await get(estuaryId)).status).toBe(401);
   });
+});
+
+describe("signing the communication (signatory only)", () => {
+  const sign = async (fields: Record<string, string>) => {
+    const { signCommunicationAction } = await import("@/app/(app)/sites/[siteId]/embedded-emissions/actions");
+    const form = new FormData();
+    for (const [k, v] of Object.entries({ siteId: estuaryId, ...fields })) form.set(k, v);
+    return signCommunicationAction(null, form);
+  };
+
+  it("the officer may not sign; the signatory's signature verifies and the JSON inside equals the draft", async () => {
+    actAs(org.session("environmental_officer"));
+    const refused = await sign({ from: "2026-01", to: "2026-03" });
+    expect(refused.ok).toBe(false);
+    expect(refused.message).toMatch(/^Your role does not allow/);
+
+    actAs(org.session("signatory"));
+    const signed = await sign({ from: "2026-01", to: "2026-03", shipped_t: "12000" });
+    expect(signed.ok, signed.message).toBe(true);
+    const id = signed.ok ? signed.data!.id : "";
+    const [row] = await testDb().select().from(statements).where(and(eq(statements.id, id), eq(statements.organisationId, org.id)));
+    expect(row.kind).toBe("cbam");
+    expect(row.period).toBe("2026-01..2026-03");
+    const v = await verifyStatementPdf(testDb(), { organisationId: org.id }, row.pdf);
+    expect(v.verdict).toBe("issued");
+
+    const res = await (await import("@/app/api/v1/statements/[id]/document/route")).GET(request("GET", `/api/v1/statements/${id}/document`), ctx({ id }));
+    expect(res.status).toBe(200);
+    const inside = await res.json();
+    const draft = await (await get(estuaryId, "?from=2026-01&to=2026-03&shipped_t=12000")).json();
+    expect(inside.figures).toEqual(draft.figures);
+    expect(inside.shipment).toEqual(draft.shipment);
+    const schema = await (await (await import("@/app/api/v1/schemas/cbam-communication.json/route")).GET()).json();
+    expect(new Ajv2020({ strict: false }).validate(schema, inside)).toBe(true);
+
+    // The same period again is revision 2; the first is kept as signed.
+    const again = await sign({ from: "2026-01", to: "2026-03" });
+    expect(again.ok).toBe(true);
+    const rows = await testDb().select().from(statements).where(and(eq(statements.siteId, estuaryId), eq(statements.kind, "cbam")));
+    expect(rows.map((r) => r.revision).sort()).toEqual([1, 2]);
+  });
+
 });

@@ -13,7 +13,7 @@ const form = (fields: Record<string, string | Blob>) => {
 };
 
 /** A stored certificate row (its bytes are never opened here) and a statement signed with it. */
-async function storedStatement({ db, target }: MatrixContext): Promise<string> {
+async function storedStatement({ db, target }: MatrixContext, kind: "monthly" | "cbam" = "monthly"): Promise<string> {
   const fingerprint = createHash("sha256").update(randomUUID()).digest("hex");
   await db.insert(signingCertificates).values({
     organisationId: target.id,
@@ -30,10 +30,10 @@ async function storedStatement({ db, target }: MatrixContext): Promise<string> {
     .values({
       organisationId: target.id,
       siteId: target.siteId,
-      kind: "monthly",
-      period: "2026-03",
+      kind,
+      period: kind === "cbam" ? "2026-01..2026-03" : "2026-03",
       revision: 1,
-      pdf: PDF,
+      pdf: kind === "cbam" ? await communicationPdf() : PDF,
       sha256: createHash("sha256").update(PDF).update(randomUUID()).digest("hex"),
       signerUserId: target.members.signatory.id,
       signerName: "Matrix signatory",
@@ -46,6 +46,15 @@ async function storedStatement({ db, target }: MatrixContext): Promise<string> {
   return row.id;
 }
 
+/** A small real PDF carrying a communication document, as a signed communication does. */
+async function communicationPdf(): Promise<Buffer> {
+  const { PDFDocument } = await import("pdf-lib");
+  const doc = await PDFDocument.create();
+  doc.addPage();
+  await doc.attach(new TextEncoder().encode('{"format":"synledger.cbam-communication/1"}'), "cbam-communication.json", { mimeType: "application/json" });
+  return Buffer.from(await doc.save());
+}
+
 async function openMonth({ db, target }: MatrixContext) {
   const [m] = await db.insert(months).values(newMonth(target.siteId, "2026-03")).onConflictDoNothing().returning();
   return m?.version ?? 1;
@@ -56,6 +65,11 @@ export const lifecycleRows: MatrixRow[] = [
     id: "GET /api/v1/statements/[id]/pdf",
     allowed: ROLES,
     call: async (ctx) => (await import("@/app/api/v1/statements/[id]/pdf/route")).GET(matrixRequest("http://matrix/"), { params: Promise.resolve({ id: await storedStatement(ctx) }) }),
+  },
+  {
+    id: "GET /api/v1/statements/[id]/document",
+    allowed: ROLES,
+    call: async (ctx) => (await import("@/app/api/v1/statements/[id]/document/route")).GET(matrixRequest("http://matrix/"), { params: Promise.resolve({ id: await storedStatement(ctx, "cbam") }) }),
   },
   {
     // Public verification (issue 13): anyone holding a copy, no account; public facts only.

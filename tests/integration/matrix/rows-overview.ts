@@ -24,6 +24,19 @@ export const overviewRows: MatrixRow[] = [
     call: async ({ target }) =>
       (await import("@/app/api/v1/sites/[siteId]/embedded-emissions/route")).GET(req("http://matrix/?from=2026-01&to=2026-03"), params({ siteId: target.siteId })),
   },
+  {
+    // The fixture site has no months: the signatory's call is refused for that reason, past the gate.
+    id: "app/(app)/sites/[siteId]/embedded-emissions/actions.ts#signCommunicationAction",
+    allowed: ["signatory"],
+    call: async ({ target }) => {
+      const { signCommunicationAction } = await import("@/app/(app)/sites/[siteId]/embedded-emissions/actions");
+      const form = new FormData();
+      form.set("siteId", target.siteId);
+      form.set("from", "2026-01");
+      form.set("to", "2026-03");
+      return signCommunicationAction(null, form);
+    },
+  },
   { id: "GET /api/v1/schemas/cbam-communication.json", allowed: "public", call: async () => (await import("@/app/api/v1/schemas/cbam-communication.json/route")).GET() },
   {
     // The fixture site has no months, so the signatory's call is refused for that reason: past the gate.

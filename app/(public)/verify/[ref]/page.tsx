@@ -6,6 +6,7 @@ import { link, pageTitle } from "@/components/ui/styles";
 import { getDb } from "@/db";
 import { laterRevisionOf, statementById } from "@/db/queries/statements";
 import { publicFacts } from "@/lib/lifecycle/verification-answer";
+import { kindLabelOf } from "@/lib/statement-kind";
 import { clientAddressOf } from "@/lib/net/forwarded";
 import { countRequest, VERIFY_LIMIT } from "@/lib/net/rate-limit";
 import { verifyAction } from "../actions";
@@ -49,7 +50,7 @@ export default async function StatementRecordPage({ params }: { params: Promise<
     <div className="max-w-3xl space-y-4">
       <p className="num text-sm text-ink-soft">Reference {s.reference}</p>
       <h1 className={pageTitle}>
-        {s.kind === "monthly" ? "Monthly" : "Annual"} statement of {s.installation}, {s.periodLabel}
+        {kindLabelOf(s.kind)}{s.kind === "cbam" ? "" : " statement"} of {s.installation}, {s.periodLabel}
       </h1>
       {n ? (
         <Notice tone="warn" title={`Superseded by revision ${n.revision}`}>

@@ -6,6 +6,7 @@ import { Notice } from "@/components/ui/status";
 import { buttonPrimary, link } from "@/components/ui/styles";
 import type { ActionResult } from "@/lib/auth/guard";
 import type { PublicStatementFacts, VerificationAnswer } from "@/lib/lifecycle/verification-answer";
+import { kindLabelOf } from "@/lib/statement-kind";
 
 const TONE = { issued: "ok", superseded: "warn", altered: "fault", unknown: "warn" } as const;
 
@@ -106,7 +107,7 @@ export function FactsList({ s, figures }: { s: PublicStatementFacts; figures: bo
       <dd className="num">{s.identifiers ?? "not recorded in this statement"}</dd>
       <dt className="text-ink-soft">Statement</dt>
       <dd>
-        {s.kind === "monthly" ? "Monthly" : "Annual"}, {s.periodLabel}, revision {s.revision}
+        {kindLabelOf(s.kind)}, {s.periodLabel}, revision {s.revision}
       </dd>
       <dt className="text-ink-soft">Signed by</dt>
       <dd>

@@ -1,0 +1,3 @@
+ALTER TYPE "public"."statement_kind" ADD VALUE 'cbam';--> statement-breakpoint
+ALTER TABLE "statements" DROP CONSTRAINT "statements_period_format";--> statement-breakpoint
+ALTER TABLE "statements" ADD CONSTRAINT "statements_period_format" CHECK (("statements"."kind"::text = 'monthly' AND "statements"."period" ~ '^[0-9]{4}-(0[1-9]|1[0-2])$') OR ("statements"."kind"::text = 'annual' AND "statements"."period" ~ '^[0-9]{4}$') OR ("statements"."kind"::text = 'cbam' AND "statements"."period" ~ '^[0-9]{4}-(0[1-9]|1[0-2])[.][.][0-9]{4}-(0[1-9]|1[0-2])$'));
