@@ -42,8 +42,8 @@ export function EuEtsCheck({ figures }: { figures: Figures }) {
         <div className={STAT}>
           <dt className="text-xs text-ink-soft">Verifier&apos;s materiality level (2018/2067 Art 23)</dt>
           <dd>
-            <QtyCell q={{ value: `${e.materiality_threshold_pct} %`, unit: "" }} strong />{" "}
-            <span className="num text-sm text-ink-soft">= {fixed(e.materiality_threshold_t, 0)} t CO2e</span>
+            <span className="num whitespace-nowrap font-semibold">{e.materiality_threshold_pct} %</span>{" "}
+            <span className="num whitespace-nowrap text-sm text-ink-soft">= {fixed(e.materiality_threshold_t, 0)} t CO2e</span>
           </dd>
         </div>
       </dl>
@@ -51,9 +51,9 @@ export function EuEtsCheck({ figures }: { figures: Figures }) {
         caption="Source streams, class and tiers"
         rows={e.source_streams}
         columns={[
-          { title: "Source stream", cell: (r) => <span className="num">{r.id}</span> },
+          { title: "Source stream", cell: (r) => <span className="num whitespace-nowrap">{r.id}</span> },
           { title: "Class", cell: (r) => CLASS_LABEL[r.class] },
-          { title: "CO2e (t)", numeric: true, cell: (r) => <span className="num">{fixed(r.emissions_t, 0)}</span> },
+          { title: "CO2e (t)", numeric: true, cell: (r) => <span className="num whitespace-nowrap">{fixed(r.emissions_t, 0)}</span> },
           { title: "Share (%)", numeric: true, cell: (r) => <span className="num">{fixed(r.share_pct, 2)}</span> },
           { title: "Meter, year (±%, 95 %)", numeric: true, cell: (r) => <span className="num">{r.uncertainty_pct === null ? "—" : fixed(r.uncertainty_pct, 2)}</span> },
           { title: "Activity tier reached", cell: (r) => <TierCell r={r} /> },

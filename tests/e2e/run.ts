@@ -14,6 +14,7 @@ import { securityChecks } from "./security";
 import { lifecycleChecks } from "./lifecycle";
 import { journeyChecks } from "./journey";
 import { widthChecks } from "./widths";
+import { embeddedEmissionsChecks } from "./embedded-emissions";
 
 const BASE = (process.env.E2E_BASE_URL ?? "http://127.0.0.1:3000").replace(/\/+$/, "");
 const OUT = "test-results/e2e";
@@ -166,6 +167,7 @@ async function main(): Promise<void> {
     await runMonthEntry(browser, { base: BASE, viewport, check, assert, shot, signIn });
 
     await overviewChecks({ browser, base: BASE, viewport, check, assert, shot, signIn });
+    await embeddedEmissionsChecks({ browser, base: BASE, out: OUT, viewport, check, assert, shot, signIn });
 
     await journeyChecks({ browser, base: BASE, out: OUT, viewport, check, assert, shot, signIn });
 

@@ -196,6 +196,10 @@ describe("exports", () => {
     // The set's name holds commas, so it is quoted.
     expect(rows[0]).toMatch(/^ipcc-2006,"IPCC 2006 Guidelines \(Vol 2 energy, Vol 3 Ch 3 ammonia\)",yes,\d/);
     expect(rows[1]).toMatch(/,no,/);
+    // The recorded set's row counts the ended months only, like the totals: the month in progress is left out.
+    const { default: Papa } = await import("papaparse");
+    const recorded = Papa.parse<string[]>(rows[0]).data[0];
+    expect(recorded[6]).toBe(seriesOf((await loadSiteYear(testDb(), org.id, estuaryId, YEAR))!).totals.co2e_t);
   });
 });
 

@@ -73,7 +73,7 @@ export default async function EmbeddedEmissionsPage({ params, searchParams }: { 
           <input className={input} id="to" name="to" type="month" defaultValue={p.ok ? p.to : q.to} aria-invalid={!p.ok && p.path === "to"} />
         </div>
         <div>
-          <label className={label} htmlFor="shipped_t">Shipped quantity (t NH3, optional)</label>
+          <label className={label} htmlFor="shipped_t">Shipped, t NH3 (optional)</label>
           <input className={input} id="shipped_t" name="shipped_t" inputMode="decimal" defaultValue={q.shipped_t ?? ""} aria-invalid={!p.ok && p.path === "shipped_t"} />
         </div>
         <button type="submit" className={buttonSecondary}>Prepare</button>

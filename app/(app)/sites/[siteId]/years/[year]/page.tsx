@@ -122,9 +122,9 @@ export default async function YearPage({ params }: { params: Promise<Params> }) 
           <YearByGas model={model} />
         </Section>
       </div>
-      <Section id="rule-sets" title="Gross, deducted and net CO2 under each rule set" note="The same stored months recomputed under each built-in factor set; only the recorded set counts for statements.">
+      <Section id="rule-sets" title="Gross, deducted and net CO2 under each rule set" note="The same stored months that have ended recomputed under each built-in factor set (a month in progress is left out, as in the totals); only the recorded set counts for statements.">
         <Suspense fallback={<ListSkeleton label="Rule sets" />}>
-          <RuleSetTable documents={y.runs.map((r) => r.document)} tolerance={y.site.closureTolerancePct} recorded={recordedSets} />
+          <RuleSetTable documents={endedRuns(y.runs).map((r) => r.document)} tolerance={y.site.closureTolerancePct} recorded={recordedSets} />
         </Suspense>
       </Section>
       <Section id="intensities" title="Intensity against benchmarks">

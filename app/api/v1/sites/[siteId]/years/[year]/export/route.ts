@@ -4,7 +4,7 @@ import { HttpError, notFound } from "@/lib/auth/errors";
 import { v1Route } from "@/lib/api/route";
 import { exportName, monthStreamsCsv, ruleSetsCsv, sourcesCsv, yearCsv, yearDocument, yearParam } from "@/lib/ledger/exports";
 import { isMonthOfYear } from "@/lib/period";
-import { yearBySource, yearUnderEachFactorSet } from "@/lib/ledger/year";
+import { endedRuns, yearBySource, yearUnderEachFactorSet } from "@/lib/ledger/year";
 
 type Params = { siteId: string; year: string };
 
@@ -55,10 +55,10 @@ export const GET = v1Route<Params>({ permission: "org:read", what: "export years
   const series = seriesOf(y);
   const name = exportName(y.site.code, month ?? year, "csv", table === "months" || table === "streams" ? undefined : table);
   if (run) return download(monthStreamsCsv(y.site, run), "text/csv", name);
-  if (table === "sources") return download(sourcesCsv(series, yearBySource(y.runs)), "text/csv", name);
+  if (table === "sources") return download(sourcesCsv(series, yearBySource(endedRuns(y.runs))), "text/csv", name);
   if (table === "rule-sets") {
     const recorded = [...new Set(series.months.flatMap((m) => (m.method ? [m.method.factor_set] : [])))];
-    return download(ruleSetsCsv(series, yearUnderEachFactorSet(y.runs.map((r) => r.document), y.site.closureTolerancePct, recorded)), "text/csv", name);
+    return download(ruleSetsCsv(series, yearUnderEachFactorSet(endedRuns(y.runs).map((r) => r.document), y.site.closureTolerancePct, recorded)), "text/csv", name);
   }
   return download(yearCsv(series), "text/csv", name);
 });
