@@ -241,10 +241,10 @@ export function buildMonthlyModel(input: MonthlyModelInput): MonthlyStatementMod
     summary: {
       co2e: {
         gross: { value: fixed(e.co2e_t, 1), unit: "t CO2e" },
-        deducted: { value: fixed(e.deductible_co2_t, 1), unit: "t CO2e" },
+        deducted: { value: fixed(e.deductible_co2_t, 1), unit: "t CO2" },
         net: { value: fixed(e.net_co2e_t, 1), unit: "t CO2e" },
       },
-      uncertainty: `± ${fixed(u.u95_pct, 2)} % (± ${fixed(u.u95_t, 1)} t)`,
+      uncertainty: `± ${fixed(u.u95_pct, 2)} % (± ${fixed(u.u95_t, 1)} ${ue ? "t CO2e" : "t CO2"})`,
       uncertaintyNote: ue
         ? `Expanded uncertainty of gross CO2e (coverage factor k = ${u.coverage_factor}): meters, gas analyses and factors, CH4 and N2O (${fixed(nonCo2Share, 2)} % of the CO2e) with their factors' ranges.`
         : `Expanded uncertainty of gross CO2 (coverage factor k = ${u.coverage_factor}); CH4 and N2O, ${fixed(nonCo2Share, 2)} % of the CO2e, are not in it.`,

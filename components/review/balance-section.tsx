@@ -84,7 +84,7 @@ export function BalanceSection({ doc, model, tolerance, streams }: { doc: Result
               caption="Measured and reconciled flows"
               columns={[
                 { title: "Stream", cell: (r) => <span>{byKey.get(r.id)?.name ?? r.id}</span> },
-                { title: "Meter", cell: (r) => <span className="num text-xs">{byKey.get(r.id)?.meterTag ?? "—"}</span> },
+                { title: "Meter", cell: (r) => <span className="num whitespace-nowrap text-xs">{byKey.get(r.id)?.meterTag ?? "—"}</span> },
                 { title: "Measured", numeric: true, cell: (r) => <QtyCell q={{ value: exact(r.measured), unit: byKey.get(r.id)?.unit ?? "" }} /> },
                 // Reconciled to the decimals the meter's own reading was given with, so the two read side by side.
                 { title: "Reconciled", numeric: true, cell: (r) => <QtyCell q={{ value: fixed(r.reconciled, decimalsOf(r.measured)), unit: byKey.get(r.id)?.unit ?? "" }} /> },

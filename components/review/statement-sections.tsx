@@ -70,7 +70,7 @@ export function EmissionsSections({ m, explain }: { m: MonthlyStatementModel; ex
           columns={[
             { title: "Figure", cell: (r) => r.figure },
             { title: "Value", numeric: true, cell: (r) => <QtyCell q={r.value} /> },
-            { title: "Expanded uncertainty", cell: (r) => <span className="num text-xs">{r.expanded}</span> },
+            { title: "Expanded uncertainty", cell: (r) => <span className="num whitespace-nowrap text-xs">{r.expanded}</span> },
             { title: "From", cell: (r) => <span className="text-xs text-ink-soft">{r.note}</span> },
           ]}
           rows={m.uncertainty}

@@ -234,7 +234,7 @@ export function SummaryBlock({ s, method, intensities }: { s: SummaryFacts; meth
         {big("Deducted (CO2 transferred)", s.co2e.deducted)}
         {big("Total CO2e, net", s.co2e.net, true)}
         <View style={{ flex: 1.1 }}>
-          <Text style={[styles.small, styles.muted]}>Uncertainty (95 %)</Text>
+          <Text style={[styles.small, styles.muted]}>Uncertainty of the gross (95 %)</Text>
           <Text style={[styles.num, { textAlign: "left", fontSize: 9 }]}>{s.uncertainty}</Text>
         </View>
       </View>
