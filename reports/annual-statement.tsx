@@ -102,6 +102,24 @@ function EuEtsBlock({ n, e }: { n: string; e: EuEtsSection }) {
       ) : (
         <Text style={[styles.small, { marginTop: 3 }]}>Every source stream meets the tiers its category and class require.</Text>
       )}
+      {e.report ? (
+        <View style={{ marginTop: 5 }}>
+          <Text style={[styles.small, { fontWeight: 600, marginBottom: 2 }]}>Annual emissions report content</Text>
+          <DataTable<NonNullable<EuEtsSection["report"]>["streams"][number]>
+            columns={[
+              { title: "Source stream", flex: 1.2, cell: (r) => r.id },
+              { title: "Activity data", flex: 2, numeric: true, cell: (r) => r.activity },
+              { title: "NCV (GJ/t)", flex: 1.1, numeric: true, cell: (r) => r.ncv },
+              { title: "EF (t CO2/TJ)", flex: 1.1, numeric: true, cell: (r) => r.ef },
+              { title: "Oxidation factor", flex: 1.8, cell: (r) => <Text style={styles.small}>{r.oxidation}</Text> },
+              { title: "Tiers", flex: 2.2, cell: (r) => <Text style={styles.small}>{r.tiers}</Text> },
+              { title: "CO2e (t)", flex: 1.2, numeric: true, cell: (r) => r.co2e },
+            ]}
+            rows={e.report.streams}
+          />
+          {[...e.report.transfers, ...e.report.gaps].map((x, i) => <Text key={i} style={styles.small}>{x}</Text>)}
+        </View>
+      ) : null}
       <View style={{ marginTop: 5 }}>
         <KeyValues items={e.cbam} keyWidth={120} />
       </View>

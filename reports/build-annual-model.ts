@@ -205,6 +205,19 @@ export function euEtsSection(year: string, runs: AnnualModelInput["runs"], now: 
       ["Indirect embedded", c.see_indirect_t_per_t === null ? "not computed: a month's electricity has no emission factor" : `${fixed(c.see_indirect_t_per_t, 4)} t CO2e/t NH3 (${fixed(c.electricity_mwh, 0)} MWh × factor)`],
       ["Embedded, total", c.see_total_t_per_t === null ? DASH : `${fixed(c.see_total_t_per_t, 4)} t CO2e/t NH3`],
     ],
+    report: {
+      streams: f.annualReport.streams.map((s) => ({
+        id: s.id,
+        activity: s.activity.map((a) => `${fixed(a.quantity, 0)} ${a.unit}`).join("; "),
+        ncv: s.ncv_gj_per_t === null ? DASH : fixed(s.ncv_gj_per_t, 3),
+        ef: s.emission_factor_t_co2_per_tj === null ? DASH : fixed(s.emission_factor_t_co2_per_tj, 2),
+        oxidation: s.oxidation_factor,
+        tiers: `activity ${s.tier_activity}; factors ${s.tier_factors}`,
+        co2e: fixed(s.co2e_t, 1),
+      })),
+      transfers: f.annualReport.transfers.map((t) => `${t.id}: ${fixed(t.co2_t, 1)} t CO2 to ${t.destination}, ${t.deducted_under_eu_rules ? "deducted" : "not deducted"} under Art 49; receiver ${t.receiver}`),
+      gaps: f.annualReport.data_gaps,
+    },
     notes: [...e.notes, "Tiers: Annex II Table 1 (gaseous fuels): tier 4 ±1.5 %, 3 ±2.5 %, 2 ±5 %, 1 ±7.5 % over the year; the calculation-factor tier rule is unconfirmed.", "CBAM: Reg. (EU) 2023/956 Annex IV; the CN code, fertilisers' indirect emissions and the definitive period's rules are unconfirmed."],
   };
 }

@@ -295,6 +295,8 @@ export interface EuEtsSection {
   shortfalls: string[];
   cbam: [string, string][];
   notes: string[];
+  /** The annual emissions report content per source stream, and the transfers. */
+  report?: { streams: { id: string; activity: string; ncv: string; ef: string; oxidation: string; tiers: string; co2e: string }[]; transfers: string[]; gaps: string[] };
 }
 
 /** The product's standing cautions (BRIEF.md), printed on every statement. */

@@ -54,7 +54,7 @@ export const otherPaths = {
         ...year,
         { name: "format", in: "query", schema: { enum: ["csv", "json"] } },
         { name: "month", in: "query", schema: { type: "string" } },
-        { name: "table", in: "query", schema: { enum: ["sources", "rule-sets"] } },
+        { name: "table", in: "query", schema: { enum: ["sources", "rule-sets", "annual-report"] } },
       ],
       responses: responses(download("text/csv", "CSV or JSON file"), ["400", "401", "403", "404"]),
     },

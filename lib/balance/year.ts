@@ -3,7 +3,7 @@
 // (factor part correlated across months, meter part independent).
 import { YEAR_CORRELATION, rollUpYear, type YearMonthEntry, type YearResult } from "../emissions/year";
 import { embeddedEmissions, CBAM_GOOD, type CbamFigures } from "../emissions/cbam";
-import { etsBenchmark, monitoringCheck, type EtsBenchmark, type MonitoringCheck } from "../emissions/eu-ets";
+import { annualReportContent, etsBenchmark, monitoringCheck, type AnnualReportContent, type EtsBenchmark, type MonitoringCheck } from "../emissions/eu-ets";
 import { EU_MRR } from "../emissions/factor-sets/eu-mrr";
 import type { CalculationResult } from "./calculate";
 import { num } from "./decimal";
@@ -28,6 +28,7 @@ export interface YearRollUp {
   /** EU emissions trading monitoring check and CBAM embedded emissions of the months given (issue 14). */
   euEts: MonitoringCheck;
   etsBenchmark: EtsBenchmark | null;
+  annualReport: AnnualReportContent;
   cbam: CbamFigures;
 }
 
@@ -59,6 +60,7 @@ export function rollUp(months: LoadedMonth[]): YearRollUp {
   return {
     site: sorted[0].doc.site, files: sorted, year, flags: [...year.flags, ...euEts.flags, ...monthFlags], euEts,
     etsBenchmark: etsBenchmark(year.year, EU_MRR.benchmarks, year.emissions.co2e_t, year.ammonia_t), cbam: embeddedEmissions(entries),
+    annualReport: annualReportContent(entries, euEts, year.year),
   };
 }
 
@@ -104,7 +106,7 @@ export function toYearDocument(y: YearRollUp) {
       co2e: uncertaintyJson(r.uncertainty.co2e),
       net_co2e: uncertaintyJson(r.uncertainty.net_co2e),
     },
-    eu_ets: euEtsJson(y.euEts, y.etsBenchmark),
+    eu_ets: { ...euEtsJson(y.euEts, y.etsBenchmark), annual_report: annualReportJson(y.annualReport) },
     cbam: cbamJson(y.cbam),
     flags: y.flags,
   };
@@ -149,5 +151,18 @@ export function cbamJson(c: CbamFigures) {
     see_indirect_t_per_t: num(c.see_indirect_t_per_t),
     see_total_t_per_t: num(c.see_total_t_per_t),
     precursors: c.precursors,
+  };
+}
+
+export function annualReportJson(r: AnnualReportContent) {
+  return {
+    streams: r.streams.map((s) => ({
+      id: s.id, kind: s.kind, activity: s.activity.map((a) => ({ unit: a.unit, quantity: num(a.quantity) })), mass_t: num(s.mass_t),
+      ncv_gj_per_t: num(s.ncv_gj_per_t), carbon_t_per_t: num(s.carbon_t_per_t), emission_factor_t_co2_per_tj: num(s.emission_factor_t_per_tj),
+      oxidation_factor: s.oxidation_factor, tier_activity: s.tier_activity, tier_factors: s.tier_factors, co2_t: num(s.co2_t), co2e_t: num(s.co2e_t),
+    })),
+    totals: { co2e_before_deductions_t: num(r.totals.co2e_before_deductions_t), deducted_t: num(r.totals.deducted_t), net_co2e_t: num(r.totals.net_co2e_t) },
+    transfers: r.transfers.map((t) => ({ id: t.id, destination: t.destination, co2_t: num(t.co2_t), deducted_under_eu_rules: t.deducted_under_eu_rules, receiver: t.receiver })),
+    data_gaps: r.data_gaps,
   };
 }

@@ -10,6 +10,7 @@ import { FIRST_YEAR, LAST_YEAR, isYearKey } from "@/lib/period";
 import { num } from "@/lib/balance/decimal";
 import { toResultDocument } from "@/lib/balance/result";
 import type { YearSeries } from "./series";
+import type { annualReportJson } from "@/lib/balance/year";
 import type { MonthRun, RuleSetYear } from "./year";
 
 export const YEAR_DOCUMENT_FORMAT = "synledger.plant-month-year/1";
@@ -95,6 +96,26 @@ export function sourcesCsv(series: YearSeries, rows: { id: string; kind: string;
     [`Synledger emissions by source: ${series.site.name} (${series.site.code}), ${series.year}`, methodLine(series)],
     ["source", "kind", "CO2 (t)", "CH4 (t)", "N2O (t)", "CO2e (t)"],
     rows.map((r) => [r.id, r.kind, r.co2_t, r.ch4_t, r.n2o_t, r.co2e_t]),
+  );
+}
+
+/**
+ * The annual emissions report content (EU monitoring rules): one row per source stream with its
+ * activity data, calorific value, carbon content, emission factor, oxidation factor, tiers and
+ * emissions; then the transfers with their destination; comment lines carry totals and data gaps.
+ */
+export function annualReportCsv(series: YearSeries, r: ReturnType<typeof annualReportJson>): string {
+  return csvDocument(
+    [
+      `Synledger annual emissions report content: ${series.site.name} (${series.site.code}), ${series.year}`,
+      `totals: CO2e before deductions ${r.totals.co2e_before_deductions_t} t; deducted under Reg. (EU) 2018/2066 Art 49 ${r.totals.deducted_t} t; net ${r.totals.net_co2e_t} t`,
+      ...r.data_gaps.map((g) => `data gap: ${g}`),
+    ],
+    ["row", "id", "kind or destination", "activity data", "mass (t)", "NCV (GJ/t)", "carbon (t C/t)", "emission factor (t CO2/TJ)", "oxidation factor", "activity tier", "factor tier", "CO2 (t)", "CO2e (t)", "deducted"],
+    [
+      ...r.streams.map((s): CsvValue[] => ["source stream", s.id, s.kind, s.activity.map((a) => `${a.quantity} ${a.unit}`).join("; "), s.mass_t, s.ncv_gj_per_t, s.carbon_t_per_t, s.emission_factor_t_co2_per_tj, s.oxidation_factor, s.tier_activity, s.tier_factors, s.co2_t, s.co2e_t, ""]),
+      ...r.transfers.map((t): CsvValue[] => ["transfer", t.id, t.destination, "", t.co2_t, "", "", "", "", "", "", t.co2_t, "", t.deducted_under_eu_rules ? "yes" : "no"]),
+    ],
   );
 }
 

@@ -10,9 +10,9 @@ import { parsePlantMonth, type InputIssue } from "@/lib/balance/schema";
 import { BUILT_IN_FACTOR_SETS } from "@/lib/emissions/registry";
 import { rollUpYear, type YearResult } from "@/lib/emissions/year";
 import { hasEnded } from "@/lib/period";
-import { cbamJson, euEtsJson } from "@/lib/balance/year";
+import { annualReportJson, cbamJson, euEtsJson } from "@/lib/balance/year";
 import { embeddedEmissions } from "@/lib/emissions/cbam";
-import { etsBenchmark, monitoringCheck } from "@/lib/emissions/eu-ets";
+import { annualReportContent, etsBenchmark, monitoringCheck } from "@/lib/emissions/eu-ets";
 import { EU_MRR } from "@/lib/emissions/factor-sets/eu-mrr";
 
 export type MonthStateName = "open" | "balanced" | "in_review" | "signed" | "submitted";
@@ -195,5 +195,10 @@ export function yearEuEtsAndCbam(year: string, runs: readonly MonthRun[], now = 
   const check = monitoringCheck(entries);
   const co2e = entries.reduce((a, e) => a.plus(e.result.emissions.co2e_t), ZERO);
   const nh3 = entries.reduce((a, e) => a.plus(new Dec(e.input.ammonia_t.toString())), ZERO);
-  return { euEts: euEtsJson(check, etsBenchmark(year, EU_MRR.benchmarks, co2e, nh3)), cbam: cbamJson(embeddedEmissions(entries)), flags: check.flags };
+  return {
+    euEts: euEtsJson(check, etsBenchmark(year, EU_MRR.benchmarks, co2e, nh3)),
+    annualReport: annualReportJson(annualReportContent(entries, check, year)),
+    cbam: cbamJson(embeddedEmissions(entries)),
+    flags: check.flags,
+  };
 }

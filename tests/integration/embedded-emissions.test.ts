@@ -70,6 +70,20 @@ describe("embedded emissions of the demo's Estuary Works, 2026-01..2026-06", () 
     expect(doc.good.cn_status).toBe("unconfirmed");
   });
 
+  it("the annual emissions report content exports as CSV and JSON with the engine's per-stream emissions", async () => {
+    actAs(org.session("auditor"));
+    const exportOf = async (q: string) =>
+      (await import("@/app/api/v1/sites/[siteId]/years/[year]/export/route")).GET(request("GET", `/api/v1/sites/${estuaryId}/years/2026/export?${q}`), ctx({ siteId: estuaryId, year: "2026" }));
+    const json = await (await exportOf("format=json&table=annual-report")).json();
+    expect(json.format).toBe("synledger.annual-report-content/1");
+    const months = demoSeedMonths("estuary").filter((m) => m.doc.month.startsWith("2026") && hasEnded(m.doc.month));
+    const feedCo2 = months.map((m) => calculate(m.doc, { closureTolerancePct: new Dec("2") })).reduce((a, r) => a.plus(r.emissions.detail.by_stream.find((b) => b.id === "feed")!.co2_t), new Dec(0));
+    expect(json.streams.find((x: { id: string }) => x.id === "feed").co2_t).toBe(num(feedCo2));
+    const csv = await (await exportOf("format=csv&table=annual-report")).text();
+    expect(csv).toContain(`source stream,feed,feed-gas,`);
+    expect(csv).toContain("transfer,co2-urea,urea,");
+  });
+
   it("names the parameter it refuses", async () => {
     actAs(org.session("auditor"));
     for (const [query, path] of [["?from=2026-13", "from"], ["?from=2026-05&to=2026-02", "to"], ["?from=2026-01&to=2099-01", "to"], ["?shipped_t=1e5", "shipped_t"]] as const) {

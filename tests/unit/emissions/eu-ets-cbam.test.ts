@@ -4,7 +4,7 @@ import { describe, expect, it } from "vitest";
 import { D, dec, type Decimal } from "../../../lib/emissions/decimal";
 import { embeddedEmissions } from "../../../lib/emissions/cbam";
 import {
-  activityTierOf, activityTierRequired, annualUncertaintyPct, classifySourceStreams, etsBenchmark, installationCategory, materialityPct, monitoringCheck,
+  annualReportContent, activityTierOf, activityTierRequired, annualUncertaintyPct, classifySourceStreams, etsBenchmark, installationCategory, materialityPct, monitoringCheck,
 } from "../../../lib/emissions/eu-ets";
 import { EU_MRR } from "../../../lib/emissions/factor-sets/eu-mrr";
 import type { YearMonthEntry } from "../../../lib/emissions/year";
@@ -14,13 +14,16 @@ import { demoPlantMonths } from "../../../lib/demo/scenario";
 
 /** A month reduced to what the check and CBAM read: per-stream CO2e, meters, ammonia, transfers, electricity. */
 function month(m: string, o: {
-  streams: { id: string; kind: "feed-gas" | "fuel-gas" | "purge-gas"; co2e: string; quantity: string; u: string | null; sys?: string; analysis?: string }[];
+  streams: { id: string; kind: "feed-gas" | "fuel-gas" | "purge-gas"; co2e: string; quantity: string; u: string | null; sys?: string; analysis?: string; t?: string; gj?: string; carbon?: string }[];
+  exports?: { id: string; destination: "urea" | "storage" | "pcc"; t: string }[];
   ammonia: string; storage?: string; urea?: string; power?: { mwh: string; factor?: string };
 }): YearMonthEntry {
   const co2e = o.streams.reduce((a, s) => a.plus(s.co2e), new D(0));
   const streams = [
     ...o.streams.map((s) => ({ id: s.id, kind: s.kind, unit: "Sm3", quantity: dec(s.quantity), uncertainty_pct: s.u === null ? null : dec(s.u),
+      t: s.t ? dec(s.t) : null, gj_lhv: s.gj ? dec(s.gj) : null, carbon_t: s.carbon ? dec(s.carbon) : null,
       ...(s.sys !== undefined ? { systematic_pct: dec(s.sys) } : {}), ...(s.analysis ? { analysis: s.analysis } : {}) })),
+    ...(o.exports ?? []).map((x) => ({ id: x.id, kind: "co2-export", destination: x.destination, unit: "t", quantity: dec(x.t), uncertainty_pct: null, t: dec(x.t) })),
     ...(o.power ? [{ id: "power", kind: "electricity-import", unit: "MWh", quantity: dec(o.power.mwh), uncertainty_pct: null, mwh: dec(o.power.mwh),
       ...(o.power.factor ? { factor_t_per_MWh: dec(o.power.factor) } : {}) }] : []),
   ];
@@ -30,7 +33,8 @@ function month(m: string, o: {
     input: { month: m, ammonia_t: dec(o.ammonia), streams, analyses: {}, method: { emissions: "carbon-mass-balance", factor_set: "eu-mrr", gwp: "AR5" } },
     result: {
       month: m, factor_set: { id: "eu-mrr" }, emissions: { co2e_t: co2e },
-      by_stream: o.streams.map((s) => ({ id: s.id, kind: s.kind, co2e_t: dec(s.co2e) })),
+      method: "carbon-mass-balance", uncertainty: { co2: { meters_without_uncertainty: [] } },
+      by_stream: o.streams.map((s) => ({ id: s.id, kind: s.kind, co2_t: dec(s.co2e), co2e_t: dec(s.co2e) })),
       transfers: { by_destination: { urea: by(o.urea), storage: by(o.storage), pcc: by(), sale: by(), other: by() } },
     },
   } as unknown as YearMonthEntry;
@@ -136,6 +140,31 @@ describe("worked examples, one per category", () => {
     const c = monitoringCheck(months);
     expect(c.source_streams[0]).toMatchObject({ factor_origin: "default", factor_tier_achieved: 1, factor_tier_required: 3 });
     expect(c.flags.some((f) => f.code === "eu-ets-factor-tier-shortfall")).toBe(true);
+  });
+});
+
+describe("annual emissions report content, per source stream (hand-computed)", () => {
+  const months = [
+    month("2026-01", { ammonia: "1000", exports: [{ id: "to-urea", destination: "urea", t: "500" }, { id: "to-store", destination: "storage", t: "40" }],
+      streams: [{ id: "feed", kind: "feed-gas", co2e: "1300", quantity: "600000", u: "1", analysis: "ng", t: "480", gj: "23000", carbon: "354.5" }] }),
+    month("2026-02", { ammonia: "1000", exports: [{ id: "to-urea", destination: "urea", t: "520" }],
+      streams: [{ id: "feed", kind: "feed-gas", co2e: "1200", quantity: "560000", u: "1", analysis: "ng", t: "445", gj: "21200", carbon: "330" }] }),
+  ];
+  const r = annualReportContent(months, monitoringCheck(months), "2026");
+  const feed = r.streams[0];
+  it("activity data, calorific value, carbon content and the implied emission factor", () => {
+    expect(feed.activity).toEqual([{ unit: "Sm3", quantity: dec(1_160_000) }]);
+    expect(feed.mass_t!.toFixed()).toBe("925");
+    expect(places(feed.ncv_gj_per_t, 6)).toBe("47.783784"); // 44 200 GJ / 925 t
+    expect(places(feed.carbon_t_per_t, 6)).toBe("0.740000"); // 684.5 / 925
+    expect(places(feed.emission_factor_t_per_tj, 4)).toBe("56.5611"); // 2 500 t CO2 / 44.2 TJ
+    expect(feed.oxidation_factor).toMatch(/^not applied/);
+  });
+  it("transfers by receiver kind: only storage deducted under Art 49; totals and gaps", () => {
+    expect(r.transfers.map((t) => [t.id, t.co2_t.toFixed(), t.deducted_under_eu_rules])).toEqual([["to-urea", "1020", false], ["to-store", "40", true]]);
+    expect(r.totals.deducted_t.toFixed()).toBe("40");
+    expect(r.totals.net_co2e_t.toFixed()).toBe("2460");
+    expect(r.data_gaps[0]).toContain("2026-03");
   });
 });
 

@@ -88,6 +88,8 @@ export default async function YearPage({ params }: { params: Promise<Params> }) 
         Download: <a className={link} href={`${exportBase}?format=csv`}>months (CSV)</a> ·{" "}
         <a className={link} href={`${exportBase}?format=csv&table=sources`}>sources (CSV)</a> ·{" "}
         <a className={link} href={`${exportBase}?format=csv&table=rule-sets`}>factor sets (CSV)</a> ·{" "}
+        <a className={link} href={`${exportBase}?format=csv&table=annual-report`}>annual emissions report content (CSV</a>,{" "}
+        <a className={link} href={`${exportBase}?format=json&table=annual-report`}>JSON)</a> ·{" "}
         <a className={link} href={`${exportBase}?format=json`}>plant-month files (JSON)</a>
       </p>
       {rollUp.flags.length ? (

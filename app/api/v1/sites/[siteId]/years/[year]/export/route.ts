@@ -2,13 +2,13 @@ import { getDb } from "@/db";
 import { loadSiteYear, seriesOf } from "@/lib/ledger/site-year";
 import { HttpError, notFound } from "@/lib/auth/errors";
 import { v1Route } from "@/lib/api/route";
-import { exportName, monthStreamsCsv, ruleSetsCsv, sourcesCsv, yearCsv, yearDocument, yearParam } from "@/lib/ledger/exports";
+import { annualReportCsv, exportName, monthStreamsCsv, ruleSetsCsv, sourcesCsv, yearCsv, yearDocument, yearParam } from "@/lib/ledger/exports";
 import { isMonthOfYear } from "@/lib/period";
-import { endedRuns, yearBySource, yearUnderEachFactorSet } from "@/lib/ledger/year";
+import { endedRuns, yearBySource, yearEuEtsAndCbam, yearUnderEachFactorSet } from "@/lib/ledger/year";
 
 type Params = { siteId: string; year: string };
 
-const TABLES = ["months", "streams", "sources", "rule-sets"] as const;
+const TABLES = ["months", "streams", "sources", "rule-sets", "annual-report"] as const;
 type Table = (typeof TABLES)[number];
 
 const bad = (path: string, message: string) => new HttpError(400, "invalid_input", `The ${path} parameter is not valid: ${message}.`, [{ path, message }]);
@@ -48,6 +48,11 @@ export const GET = v1Route<Params>({ permission: "org:read", what: "export years
   const run = month ? y.runs.find((r) => r.period === month) : undefined;
   if (month && !run) throw new HttpError(404, "not_found", `No figures have been entered for ${month} at ${y.site.name} yet.`);
 
+  if (format === "json" && table === "annual-report") {
+    const figures = yearEuEtsAndCbam(y4, y.runs);
+    if (!figures) throw new HttpError(404, "not_found", `No ended month of ${y4} computes at ${y.site.name} yet.`);
+    return download(`${JSON.stringify({ format: "synledger.annual-report-content/1", site: y.site.code, year: y4, ...figures.annualReport, eu_ets: figures.euEts }, null, 2)}\n`, "application/json", exportName(y.site.code, year, "json", "annual-report"));
+  }
   if (format === "json") {
     const body = run ? run.document : yearDocument(y.site, year, y.runs);
     return download(`${JSON.stringify(body, null, 2)}\n`, "application/json", exportName(y.site.code, month ?? year, "json"));
@@ -56,6 +61,11 @@ export const GET = v1Route<Params>({ permission: "org:read", what: "export years
   const name = exportName(y.site.code, month ?? year, "csv", table === "months" || table === "streams" ? undefined : table);
   if (run) return download(monthStreamsCsv(y.site, run), "text/csv", name);
   if (table === "sources") return download(sourcesCsv(series, yearBySource(endedRuns(y.runs))), "text/csv", name);
+  if (table === "annual-report") {
+    const figures = yearEuEtsAndCbam(y4, y.runs);
+    if (!figures) throw new HttpError(404, "not_found", `No ended month of ${y4} computes at ${y.site.name} yet.`);
+    return download(annualReportCsv(series, figures.annualReport), "text/csv", name);
+  }
   if (table === "rule-sets") {
     const recorded = [...new Set(series.months.flatMap((m) => (m.method ? [m.method.factor_set] : [])))];
     return download(ruleSetsCsv(series, yearUnderEachFactorSet(endedRuns(y.runs).map((r) => r.document), y.site.closureTolerancePct, recorded)), "text/csv", name);
