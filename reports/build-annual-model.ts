@@ -186,7 +186,7 @@ export function euEtsSection(year: string, runs: AnnualModelInput["runs"], now: 
     facts: [
       ["Installation category", `${e.installation_category} (Reg. (EU) 2018/2066 Art 19(2); from ${fixed(e.emissions_t, 0)} t CO2e this year)`],
       ["Materiality level", `${e.materiality_threshold_pct} % = ${fixed(e.materiality_threshold_t, 0)} t CO2e (Reg. (EU) 2018/2067 Art 23)`],
-      ["EU ammonia benchmark", b ? `${b.value} ${b.unit} (${b.source}${b.status === "unconfirmed" ? ", unconfirmed" : ""}); this year ${fixed(b.intensity_t_per_t, 3)} t CO2e/t NH3, CO2 to urea counted as emitted` : e.benchmark_note ?? DASH],
+      ["EU ammonia benchmark", b ? `${b.value === null ? `${b.label}: ${b.value_note}` : `${b.value} ${b.unit} (${b.source})`}; this year ${fixed(b.intensity_t_per_t, 3)} t CO2e/t NH3, CO2 to urea counted as emitted` : e.benchmark_note ?? DASH],
     ],
     streams: e.source_streams.map((s) => ({
       id: s.id,

@@ -86,9 +86,9 @@ export function EuEtsCheck({ figures }: { figures: Figures }) {
         <span className="font-medium">EU ammonia product benchmark: </span>
         {b ? (
           <>
-            <span className="num">{b.value} {b.unit}</span> ({b.source}{b.status === "unconfirmed" ? ", value unconfirmed" : ""}); this year{" "}
-            <span className="num">{fixed(b.intensity_t_per_t, 3)} t CO2e/t NH3</span> counting CO2 to urea as emitted,{" "}
-            <span className="num">{fixed(b.difference_pct, 1)} %</span> against it.
+            {b.value === null ? <span className="text-ink-soft">{b.label}: {b.value_note}</span> : <span className="num">{b.value} {b.unit} ({b.source})</span>}; this year{" "}
+            <span className="num">{fixed(b.intensity_t_per_t, 3)} t CO2e/t NH3</span> counting CO2 to urea as emitted
+            {b.difference_pct === null ? "." : <>, <span className="num">{fixed(b.difference_pct, 1)} %</span> against it.</>}
           </>
         ) : (
           <span className="text-ink-soft">{e.benchmark_note}.</span>

@@ -125,7 +125,7 @@ export function euEtsJson(c: MonitoringCheck, b: EtsBenchmark | null) {
       factor_origin: s.factor_origin, factor_tier_achieved: s.factor_tier_achieved, factor_tier_required: s.factor_tier_required, rule: s.rule,
     })),
     benchmark: b
-      ? { id: b.id, label: b.label, value: num(b.value), unit: b.unit, source: b.source, status: b.status,
+      ? { id: b.id, label: b.label, value: num(b.value), value_note: b.value === null ? `not shown: the value was not confirmed in ${b.source}` : null, unit: b.unit, source: b.source, status: b.status,
           intensity_t_per_t: num(b.intensity_t_per_t), difference_pct: num(b.difference_pct) }
       : null,
     benchmark_note: b ? null : "no EU ammonia benchmark is shown for this year: the act setting the 2026–2030 value was not found, so none is given",

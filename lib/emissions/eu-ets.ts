@@ -248,7 +248,8 @@ export function monitoringCheck(months: YearMonthEntry[]): MonitoringCheck {
 export interface EtsBenchmark {
   id: string;
   label: string;
-  value: Decimal;
+  /** Null when the value was not confirmed in the act that set it: then it is left out, never shown as if sourced. */
+  value: Decimal | null;
   unit: string;
   source: string;
   status: "confirmed" | "unconfirmed";
@@ -268,9 +269,10 @@ export function etsBenchmark(year: string, benchmarks: readonly Benchmark[], co2
   const b = benchmarks.find((x) => x.id.startsWith("eu-ammonia-") && (x.applies_from ?? "") <= day && (x.applies_to ?? "9999") >= day);
   if (!b) return null;
   const intensity = ammoniaT.gt(0) ? co2eBeforeDeductionsT.div(ammoniaT) : null;
-  const value = dec(b.value);
+  // Issue 14: a benchmark not confirmed in its act is left out (the year's intensity is still shown).
+  const value = b.status === "confirmed" ? dec(b.value) : null;
   return { id: b.id, label: b.label, value, unit: b.unit, source: b.source, status: b.status, intensity_t_per_t: intensity,
-    difference_pct: intensity ? intensity.minus(value).div(value).times(100) : null };
+    difference_pct: intensity && value ? intensity.minus(value).div(value).times(100) : null };
 }
 
 // ---- Annual emissions report content (Reg. (EU) 2018/2066 Art 67–68 and Annex X: what an

@@ -169,11 +169,15 @@ describe("annual emissions report content, per source stream (hand-computed)", (
 });
 
 describe("EU ammonia benchmark", () => {
-  it("2021–2025 value from the EU set, compared with CO2e before deductions per tonne; none for 2026 (act not found)", () => {
+  it("2021–2025: the EU set's value is unconfirmed in Implementing Reg. (EU) 2021/447, so it is left out; none at all for 2026 (act not found)", () => {
     const b = etsBenchmark("2024", EU_MRR.benchmarks, dec(1_650_000), dec(1_000_000))!;
-    expect(b.value.toFixed()).toBe("1.57");
     expect(b.status).toBe("unconfirmed");
-    expect(places(b.difference_pct, 4)).toBe("5.0955"); // (1.65 − 1.57) / 1.57 × 100
+    expect(b.value).toBeNull();
+    expect(b.difference_pct).toBeNull();
+    expect(places(b.intensity_t_per_t, 4)).toBe("1.6500"); // CO2e before deductions ÷ NH3
+    // A confirmed value is compared: (1.65 − 1.57) / 1.57 × 100 = 5.0955 %.
+    const confirmed = etsBenchmark("2024", EU_MRR.benchmarks.map((x) => ({ ...x, status: "confirmed" as const })), dec(1_650_000), dec(1_000_000))!;
+    expect(places(confirmed.difference_pct, 4)).toBe("5.0955");
     expect(etsBenchmark("2026", EU_MRR.benchmarks, dec(1), dec(1))).toBeNull();
   });
 });
