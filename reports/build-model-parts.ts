@@ -67,6 +67,11 @@ export function methodSection(doc: ResultDocument, streamName: (id: string) => s
     notes.push(
       `${unconfirmed.length} cited ${unconfirmed.length === 1 ? "value has" : "values have"} not yet been read in the published text of ${unconfirmed.length === 1 ? "its" : "their"} source and ${unconfirmed.length === 1 ? "is" : "are"} marked unconfirmed; the signatory acknowledged each before signing.`,
     );
+  const restated = (doc.emissions_by_stream ?? []).filter((r) => r.basis.includes("Eq G-1") && r.basis.includes("restated to"));
+  if (restated.length)
+    notes.push(
+      `Feedstock volumes were restated to 68 °F and 14.7 psia for 40 CFR 98.73(b)(1) Eq G-1 (MVC 849.5 scf per kg-mole): ${restated.map((r) => streamName(r.id)).join(", ")}; the volumes entered are at their own metering reference.`,
+    );
   const gwpStatus = provenanceOf(m.gwp);
   return {
     method: METHOD_LABELS[m.emissions] ?? m.emissions,

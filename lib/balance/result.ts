@@ -5,7 +5,8 @@ import { EmissionsInputError, computeEmissions } from "../emissions/compute";
 import { type FactorSetRegistry, defaultRegistry } from "../emissions/registry";
 import type { EmissionsResult } from "../emissions/result";
 import type { CalculationResult } from "./calculate";
-import { Dec, num } from "./decimal";
+import { Dec, dec, num } from "./decimal";
+import { CUBIC_FOOT_M3, PSI_PA, R, REFERENCES, compressibility, type GasProperties } from "./gas-properties";
 import { CalculationInputError } from "./errors";
 import { emissionsDocumentPart } from "./result-emissions";
 import type { PlantMonth } from "./schema";
@@ -55,6 +56,18 @@ export function emissionsPart(input: EmissionsInput, registry: FactorSetRegistry
  * figures: measured quantities as written (reconciled values are reported, not substituted —
  * the statement rests on the meters; the engineer decides on corrections).
  */
+/**
+ * A gas amount as standard cubic feet at 68 °F and 14.7 psia (40 CFR 98's standard conditions):
+ * kmol × Z(68 °F) × R·T / p, real gas. Z is ISO 6976's at 68 °F and 101.325 kPa (14.696 psia);
+ * the 0.004 psi to 14.7 changes Z by less than 1e-6 and is not applied. This is the file's volume
+ * restated exactly, whatever reference it was metered at.
+ */
+export function standardScf68F(kmol: Dec, gas: GasProperties): Dec {
+  const T = REFERENCES["68F"].T;
+  const p = dec("14.7").times(PSI_PA);
+  return kmol.times(compressibility(gas, "68F")).times(R).times(T).div(p).times(1000).div(CUBIC_FOOT_M3);
+}
+
 export function buildEmissionsInput(
   doc: PlantMonth,
   result: Pick<CalculationResult, "streams" | "analyses" | "feed">,
@@ -75,7 +88,10 @@ export function buildEmissionsInput(
     month: doc.month,
     method: { ...doc.method },
     ammonia_t: result.feed.ammonia_t,
-    streams: result.streams,
+    streams: result.streams.map((s) => {
+      const gas = s.analysis ? result.analyses[s.analysis]?.gas : undefined;
+      return gas && s.kmol !== null ? { ...s, standard_scf_68f: standardScf68F(s.kmol, gas) } : s;
+    }),
     analyses,
     ...(min ? { theoretical_min_gj_lhv_per_t_nh3: min } : {}),
   };

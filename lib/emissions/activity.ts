@@ -132,3 +132,24 @@ export function streamsOf(input: EmissionsInput, ...kinds: StreamFigures["kind"]
 export function carbonInputs(input: EmissionsInput): StreamFigures[] {
   return streamsOf(input, "feed-gas", "fuel-gas");
 }
+
+/**
+ * CO2 of a feed or fuel stream's carbon. Where the set writes the feedstock equation by volume
+ * (40 CFR 98.73(b)(1) Eq G-1) and the stream is feedstock with an analysis and a standard volume,
+ * CO2 = 44/12 × Fdstk × CC × MW / MVC × 0.001 month by month; otherwise carbon × the set's
+ * stoichiometric factor. The basis says which produced the figure.
+ */
+export function carbonCo2(input: EmissionsInput, set: FactorSet, s: StreamFigures, stoich: Decimal): { co2: Decimal; basis: string; equation: string | null } {
+  const eq = set.feedstock_volume_equation;
+  const a = s.analysis ? input.analyses[s.analysis] : undefined;
+  if (eq && s.kind === "feed-gas" && s.standard_scf_68f !== undefined && a) {
+    const scf = dec(s.standard_scf_68f);
+    const co2 = dec(44).div(12).times(scf).times(dec(a.carbon_mass_fraction)).times(dec(a.molar_mass)).div(dec(eq.mvc_scf_per_kmol.value)).times("0.001");
+    return {
+      co2,
+      equation: eq.equation,
+      basis: `${eq.equation}: 44/12 × ${scf.toSignificantDigits(10).toString()} scf (${s.unit} restated to ${eq.standard_temperature_f} °F, ${eq.standard_pressure_psia} psia) × ${dec(a.carbon_mass_fraction).toSignificantDigits(6).toString()} kg C/kg × ${dec(a.molar_mass).toSignificantDigits(6).toString()} kg/kg-mol ÷ ${eq.mvc_scf_per_kmol.value} scf/kg-mol × 0.001`,
+    };
+  }
+  return { co2: dec(s.carbon_t!).times(stoich), equation: null, basis: `carbon ${dec(s.carbon_t!).toSignificantDigits(10).toString()} t × ${set.stoichiometric_factor.numerator}/${set.stoichiometric_factor.denominator}` };
+}

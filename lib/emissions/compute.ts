@@ -66,7 +66,12 @@ export function computeEmissions(input: EmissionsInput, registry: FactorSetRegis
   const flags: Flag[] = [...outcome.flags];
   const eff = effectiveFlag(set, input.month);
   if (eff) flags.push(eff);
-  if (gwp.id !== set.gwp_default) {
+  const ry = input.month.slice(0, 4);
+  const ruleGwp = set.gwp_by_reporting_year?.find((r) => r.from_year <= ry && (r.to_year === null || ry <= r.to_year));
+  if (ruleGwp && ruleGwp.gwp !== gwp.id) {
+    flags.push({ code: "gwp-not-the-rules-for-year", severity: "warning",
+      message: `Reporting year ${ry} under ${set.id} uses ${ruleGwp.gwp} values (${ruleGwp.source}${ruleGwp.status === "unconfirmed" ? ", unconfirmed" : ""}); this month states ${gwp.id}, so its CO2e is not the rule's figure.` });
+  } else if (gwp.id !== set.gwp_default) {
     flags.push({ code: "gwp-differs-from-set-default", severity: "info",
       message: `GWP set ${gwp.id} chosen; factor set ${set.id} names ${set.gwp_default} as its default.` });
   }

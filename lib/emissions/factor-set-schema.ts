@@ -124,6 +124,23 @@ export const factorSetSchema = z
     }),
     activity_tiers: z.array(tierSchema).optional(),
     /**
+     * Feedstock CO2 from its standard volume, as 40 CFR 98.73(b)(1) Eq G-1 writes it:
+     * 44/12 × Fdstk (scf at the standard conditions) × CC × MW / MVC × 0.001. When present, a
+     * feed-gas stream with an analysis is computed so (its volume restated to those conditions);
+     * otherwise from its carbon in kmol (the same product with the real-gas molar volume).
+     */
+    /** The GWP set the rule itself applies in each reporting year (40 CFR 98 Table A-1's history); a month stated with another is flagged. */
+    gwp_by_reporting_year: z.array(z.object({
+      from_year: z.string().regex(/^\d{4}$/), to_year: z.string().regex(/^\d{4}$/).nullable(), gwp: z.enum(["AR4", "AR5", "AR6"]), ...citation,
+    }).refine(checkedWhenConfirmed, checkedMessage)).optional(),
+    feedstock_volume_equation: z.object({
+      equation: z.string().min(1),
+      mvc_scf_per_kmol: citedValueSchema,
+      standard_temperature_f: decimalString,
+      standard_pressure_psia: decimalString,
+      standard_source: z.string().min(1),
+    }).optional(),
+    /**
      * Default expanded (95 %) relative uncertainty, in %, of a month's gas analysis where the
      * analysis states none: of its carbon content and of its calorific value.
      */

@@ -28,6 +28,8 @@ export interface StreamFigures {
   mwh: Decimal | null;         // electricity only
   factor_t_per_MWh?: Decimal;  // electricity-import, when given in the file
   factor_t_per_GJ?: Decimal;   // steam-import/steam-export, when given in the file
+  /** Gas streams with an analysis: the volume at 68 °F and 14.7 psia (40 CFR 98's standard conditions), real gas, scf; what Eq G-1 reads. */
+  standard_scf_68f?: Decimal;
 }
 
 export interface EmissionsInput {

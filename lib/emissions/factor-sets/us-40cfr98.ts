@@ -67,6 +67,19 @@ export const US_40CFR98: FactorSet = {
   benchmarks: [],
   gwp_default: "AR5",
   analysis_uncertainty: ANALYSIS_DEFAULT_UNCERTAINTY,
+  gwp_by_reporting_year: [
+    { from_year: "2010", to_year: "2024", gwp: "AR4", source: "40 CFR 98 Table A-1 before its 2024 amendment (CH4 25, N2O 298)", status: "confirmed",
+      checked: "40 CFR 98 Table A-1 in a verbatim eCFR reproduction (text before the 2024 amendment)" },
+    { from_year: "2025", to_year: null, gwp: "AR5", source: "40 CFR 98 Table A-1 as amended in 2024 (89 FR 31802), said to apply from reporting year 2025", status: "unconfirmed" },
+  ],
+  // Eq G-1 literally: the feedstock volume restated to the rule's standard conditions, month by month.
+  feedstock_volume_equation: {
+    equation: "40 CFR 98.73(b)(1) Eq G-1",
+    mvc_scf_per_kmol: US_MOLAR_VOLUME_SCF_PER_KMOL,
+    standard_temperature_f: "68",
+    standard_pressure_psia: "14.7",
+    standard_source: "68 °F read in 40 CFR 98.163 (Subpart P's Fdstk: 'scf (at standard conditions of 68 °F and atmospheric pressure)'); 14.7 psia from § 98.6, not read here (unconfirmed)",
+  },
   deduction_rules: {
     urea: { deducted: false, source: "40 CFR 98.72(a): process CO2 includes CO2 later consumed for urea", status: "confirmed", checked: READ_72 },
     storage: { deducted: false, source: "40 CFR 98 Subpart G (captured CO2 reported under Subpart PP, not deducted)", status: "unconfirmed" },

@@ -1,5 +1,5 @@
 import { K95, ZERO, dec } from "../decimal";
-import { analysisStd, carbonInputs, relStd, stoichiometricFactor } from "../activity";
+import { analysisStd, carbonCo2, carbonInputs, relStd, stoichiometricFactor } from "../activity";
 import type { FactorSet } from "../factor-set-schema";
 import type { MethodOutcome, StreamEmission, UncertaintyTerm } from "../model";
 import type { EmissionsInput, Flag } from "../types";
@@ -27,11 +27,10 @@ export function carbonMassBalance(input: EmissionsInput, set: FactorSet): Method
         message: `Stream ${s.id} has no carbon figure (analysis missing?); it is left out of the carbon balance.` });
       continue;
     }
-    const co2 = dec(s.carbon_t).times(f);
+    const { co2, basis, equation } = carbonCo2(input, set, s, f);
     gross = gross.plus(co2);
-    rows.push({ id: s.id, kind: s.kind, co2_t: co2, ch4_t: ZERO, n2o_t: ZERO, co2e_t: ZERO,
-      basis: `carbon ${dec(s.carbon_t).toSignificantDigits(10).toString()} t × ${set.stoichiometric_factor.numerator}/${set.stoichiometric_factor.denominator}`,
-      co2_factor: { value: f, unit: "t CO2/t C", origin: "factor-set", source: set.stoichiometric_factor.source } });
+    rows.push({ id: s.id, kind: s.kind, co2_t: co2, ch4_t: ZERO, n2o_t: ZERO, co2e_t: ZERO, basis,
+      ...(equation ? {} : { co2_factor: { value: f, unit: "t CO2/t C", origin: "factor-set" as const, source: set.stoichiometric_factor.source } }) });
     terms.push({ value_t: co2, stream_id: s.id, meter_rel_std: relStd(s.uncertainty_pct, K95), ...analysisStd(input, set, s, "carbon", flags) });
   }
   const vent = ventedPurgeCarbon(input, set, f, flags);

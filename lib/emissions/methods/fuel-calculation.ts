@@ -1,5 +1,5 @@
 import { K95, ZERO, dec } from "../decimal";
-import { activityLabel, activityOf, analysisStd, meteredAsEnergy, carbonInputs, fuelFor, relStd, siteFactorFromAnalysis, stoichiometricFactor } from "../activity";
+import { activityLabel, activityOf, analysisStd, carbonCo2, meteredAsEnergy, carbonInputs, fuelFor, relStd, siteFactorFromAnalysis, stoichiometricFactor } from "../activity";
 import type { FactorSet } from "../factor-set-schema";
 import { pushOnce, type MethodOutcome, type StreamEmission, type UncertaintyTerm } from "../model";
 import type { EmissionsInput, Flag } from "../types";
@@ -23,11 +23,13 @@ export function fuelCalculation(input: EmissionsInput, set: FactorSet): MethodOu
     const of = dec(fuel.oxidation_factor.value);
     const meter = relStd(s.uncertainty_pct, K95);
     if (fuel.co2_from_analysis && s.carbon_t !== null) {
-      const co2 = dec(s.carbon_t).times(stoich).times(of);
+      // Feedstock under a set that writes it by volume (Eq G-1, which has no oxidation term); otherwise carbon × factor × oxidation.
+      const byVolume = carbonCo2(input, set, s, stoich);
+      const co2 = byVolume.equation ? byVolume.co2 : dec(s.carbon_t).times(stoich).times(of);
       const site = siteFactorFromAnalysis(input, s, fuel, stoich);
       gross = gross.plus(co2);
       rows.push({ id: s.id, kind: s.kind, co2_t: co2, ch4_t: ZERO, n2o_t: ZERO, co2e_t: ZERO,
-        basis: `carbon from analysis ${s.analysis ?? "?"} × stoichiometric factor × oxidation ${of.toString()}`,
+        basis: byVolume.equation ? byVolume.basis : `carbon from analysis ${s.analysis ?? "?"} × stoichiometric factor × oxidation ${of.toString()}`,
         ...(site ? { co2_factor: { value: site.times(of), unit: `kg CO2/${activityLabel(fuel.activity)}`,
           origin: "analysis" as const, source: `analysis ${s.analysis}` } } : {}) });
       terms.push({ value_t: co2, stream_id: s.id, meter_rel_std: meter, ...analysisStd(input, set, s, "carbon", flags) });
