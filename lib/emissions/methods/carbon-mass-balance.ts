@@ -1,4 +1,4 @@
-import { K95, ZERO, dec } from "../decimal";
+import { K95, ZERO } from "../decimal";
 import { analysisStd, carbonCo2, carbonInputs, relStd, stoichiometricFactor } from "../activity";
 import type { FactorSet } from "../factor-set-schema";
 import type { MethodOutcome, StreamEmission, UncertaintyTerm } from "../model";
