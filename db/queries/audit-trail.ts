@@ -43,6 +43,10 @@ export async function searchAudit(db: Db | Tx, organisationId: string, f: AuditT
       before: auditEvents.before,
       after: auditEvents.after,
       reason: auditEvents.reason,
+      organisationId: auditEvents.organisationId,
+      actorUserId: auditEvents.actorUserId,
+      prevHash: auditEvents.prevHash,
+      hash: auditEvents.hash,
     })
     .from(auditEvents)
     .leftJoin(sites, and(eq(sites.id, auditEvents.siteId), eq(sites.organisationId, organisationId)))

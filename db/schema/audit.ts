@@ -1,4 +1,5 @@
-import { bigint, index, jsonb, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { sql } from "drizzle-orm";
+import { bigint, check, index, jsonb, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { channelEnum } from "./enums";
 import { organisations, users } from "./organisations";
 
@@ -25,6 +26,14 @@ export const auditEvents = pgTable(
     after: jsonb("after"),
     reason: text("reason"),
     at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
+    /** Hash chain per organisation (lib/audit/chain.ts): the previous event's hash (null for the first) and this event's. Null on events recorded before the chain began. */
+    prevHash: text("prev_hash"),
+    hash: text("hash"),
   },
-  (t) => [index("audit_events_org_at_idx").on(t.organisationId, t.at), index("audit_events_entity_idx").on(t.entity, t.entityId)],
+  (t) => [
+    index("audit_events_org_at_idx").on(t.organisationId, t.at),
+    index("audit_events_entity_idx").on(t.entity, t.entityId),
+    index("audit_events_org_id_idx").on(t.organisationId, t.id),
+    check("audit_events_hash_hex", sql`${t.hash} IS NULL OR ${t.hash} ~ '^[0-9a-f]{64}$'`),
+  ],
 );

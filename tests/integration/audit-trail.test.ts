@@ -38,7 +38,7 @@ describe("GET /api/v1/audit/export (CSV)", () => {
     expect(res.headers.get("content-type")).toBe("text/csv; charset=utf-8");
     expect(res.headers.get("content-disposition")).toMatch(/^attachment; filename="synledger-audit-\d{4}-\d{2}-\d{2}\.csv"$/);
     const rows = await lines(res);
-    expect(rows[0]).toBe("id,at_utc,site,actor,channel,action,entity,entity_id,reason,before_json,after_json");
+    expect(rows[0]).toBe("id,at_utc,site,actor,channel,action,entity,entity_id,reason,before_json,after_json,organisation_id,site_id,actor_user_id,prev_hash,hash");
     expect(rows).toHaveLength(4);
     expect(rows.join("\n")).not.toContain("Someone else");
   });
