@@ -27,7 +27,7 @@ export function invitationStatus(inv: { acceptedAt: Date | null; revokedAt: Date
 
 export async function createInvitation(
   tx: Tx,
-  values: { organisationId: string; email: string; roles: Role[]; tokenHash: string; invitedBy: string; expiresAt: Date },
+  values: { organisationId: string; email: string; roles: Role[]; tokenHash: string; invitedBy: string | null; expiresAt: Date },
 ) {
   const [row] = await tx.insert(invitations).values(values).returning();
   return row;

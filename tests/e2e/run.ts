@@ -15,6 +15,7 @@ import { lifecycleChecks } from "./lifecycle";
 import { journeyChecks } from "./journey";
 import { widthChecks } from "./widths";
 import { embeddedEmissionsChecks } from "./embedded-emissions";
+import { onboardingChecks } from "./onboarding";
 
 const BASE = (process.env.E2E_BASE_URL ?? "http://127.0.0.1:3000").replace(/\/+$/, "");
 const OUT = "test-results/e2e";
@@ -168,6 +169,7 @@ async function main(): Promise<void> {
 
     await overviewChecks({ browser, base: BASE, viewport, check, assert, shot, signIn });
     await embeddedEmissionsChecks({ browser, base: BASE, out: OUT, viewport, check, assert, shot, signIn });
+    await onboardingChecks({ browser, base: BASE, out: OUT, viewport, check, assert, shot, signIn });
 
     await journeyChecks({ browser, base: BASE, out: OUT, viewport, check, assert, shot, signIn });
 
