@@ -1,7 +1,7 @@
 import { and, asc, arrayContains, eq, ne, sql } from "drizzle-orm";
 import type { Role } from "@/lib/auth/roles";
 import type { Db, Tx } from "../client";
-import { memberships, users } from "../schema";
+import { memberships, userSessions, users } from "../schema";
 
 /** Members of an organisation with their roles, by name. */
 export async function listMembers(db: Db | Tx, organisationId: string) {
@@ -13,6 +13,8 @@ export async function listMembers(db: Db | Tx, organisationId: string) {
       disabled: users.disabled,
       roles: memberships.roles,
       since: memberships.createdAt,
+      // Each sign-in is a session row: the newest one is the last sign-in (null: never signed in).
+      lastSignIn: sql<Date | null>`(select max(${userSessions.createdAt}) from ${userSessions} where ${userSessions.userId} = ${users.id})`.mapWith((v) => (v === null ? null : new Date(v as string))),
     })
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))

@@ -47,6 +47,7 @@ export default async function UsersPage() {
                 <th scope="col" className="px-3 py-2 font-medium">Member</th>
                 <th scope="col" className="px-3 py-2 font-medium">Roles</th>
                 <th scope="col" className="px-3 py-2 font-medium whitespace-nowrap">Member since</th>
+                <th scope="col" className="px-3 py-2 font-medium whitespace-nowrap">Last signed in</th>
                 <th scope="col" className="px-3 py-2 font-medium">Access</th>
               </tr>
             </thead>
@@ -69,6 +70,7 @@ export default async function UsersPage() {
                     <MemberRolesForm userId={m.userId} name={m.name} roles={m.roles.filter(isRole)} />
                   </td>
                   <td className="num px-3 py-2.5 whitespace-nowrap text-ink-soft">{formatDate(m.since)}</td>
+                  <td className="num px-3 py-2.5 whitespace-nowrap text-ink-soft">{m.lastSignIn ? formatDateTime(m.lastSignIn) : "never"}</td>
                   <td className="px-3 py-2.5">
                     {m.userId === actor.userId ? <span className="text-xs text-ink-soft">Your own account: see Your account</span> : <MemberAccessForm userId={m.userId} name={m.name} disabled={m.disabled} />}
                   </td>
