@@ -29,6 +29,8 @@ interface Stored {
   subject: string;
   text: string;
   html: string | null;
+  /** The Message-ID header as sent (the outbox row names itself there: exactly-once checks count these). */
+  messageId: string | null;
 }
 
 function list(): Stored[] {
@@ -54,6 +56,7 @@ const smtp = new SMTPServer({
           subject: mail.subject ?? "",
           text: mail.text ?? "",
           html: typeof mail.html === "string" ? mail.html : null,
+          messageId: mail.messageId ?? null,
         };
         writeFileSync(join(dir, `${id}.json`), JSON.stringify(stored, null, 2));
         callback();

@@ -107,6 +107,27 @@ export const openApiDocument = {
         ),
       },
     },
+    "/api/v1/sites/{siteId}/months/{month}/transitions": {
+      post: {
+        summary: "One life-cycle step of the month (balance, send-for-review, return, sign, record-submission, reopen), with the role, state, version and preconditions the review page applies",
+        parameters: month,
+        requestBody: body({
+          type: "object",
+          required: ["transition", "expectedVersion"],
+          additionalProperties: false,
+          properties: {
+            transition: { type: "string", enum: ["balance", "send-for-review", "return", "sign", "record-submission", "reopen"] },
+            expectedVersion: { type: "integer", minimum: 0 },
+            reason: { type: "string", maxLength: 4000 },
+            reference: { type: "string", maxLength: 120 },
+            submittedOn: { type: "string", description: "YYYY-MM-DD" },
+            declaration: { type: "boolean" },
+            acknowledged: { type: "array", items: { type: "string" } },
+          },
+        }),
+        responses: responses(json({ type: "object", properties: { state: { type: "string" }, version: { type: "integer" }, revision: { type: "integer" }, notified: { type: "integer" } } }), ["400", "401", "403", "404", "409", "422"]),
+      },
+    },
     "/api/v1/sites/{siteId}/months/{month}/method": {
       put: {
         summary: "Choose the month's emissions method, factor set and GWP set (environmental officer or administrator; while Open or Balanced)",

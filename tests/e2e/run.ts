@@ -16,6 +16,7 @@ import { journeyChecks } from "./journey";
 import { widthChecks } from "./widths";
 import { embeddedEmissionsChecks } from "./embedded-emissions";
 import { onboardingChecks } from "./onboarding";
+import { instanceChecks } from "./instances";
 
 const BASE = (process.env.E2E_BASE_URL ?? "http://127.0.0.1:3000").replace(/\/+$/, "");
 const OUT = "test-results/e2e";
@@ -170,6 +171,7 @@ async function main(): Promise<void> {
     await overviewChecks({ browser, base: BASE, viewport, check, assert, shot, signIn });
     await embeddedEmissionsChecks({ browser, base: BASE, out: OUT, viewport, check, assert, shot, signIn });
     await onboardingChecks({ browser, base: BASE, out: OUT, viewport, check, assert, shot, signIn });
+    await instanceChecks({ browser, base: BASE, out: OUT, viewport, check, assert, shot, signIn });
 
     await journeyChecks({ browser, base: BASE, out: OUT, viewport, check, assert, shot, signIn });
 

@@ -88,6 +88,13 @@ export const apiRows: MatrixRow[] = [
         params(month(c)),
       ),
   },
+  {
+    // The fixture month does not compute, so the engineer's step is refused for that reason (422): past the gate.
+    id: "POST /api/v1/sites/[siteId]/months/[month]/transitions",
+    allowed: ["process_engineer"],
+    call: async (c) =>
+      (await import("@/app/api/v1/sites/[siteId]/months/[month]/transitions/route")).POST(req("POST", JSON.stringify({ transition: "balance", expectedVersion: 1 })), params(await withMonth(c))),
+  },
   { id: "GET /api/v1/sites/[siteId]/months/[month]/export", allowed: ROLES, call: async (c) => (await import("@/app/api/v1/sites/[siteId]/months/[month]/export/route")).GET(req("GET"), params(await withMonth(c))) },
   {
     id: "POST /api/v1/sites/[siteId]/months/[month]/import",
