@@ -14,8 +14,8 @@ import type { E2eKit } from "./lifecycle";
 
 const user = (role: string) => DEMO_USERS.find((u) => u.roles.includes(role as never))!;
 const PAIRS = 20; // (send for sign-off, return) × 20 per month, after a balance where the month is Open
-const STEPS = ["balance", "send-for-review", "return"] as const;
-const ACTOR: Record<(typeof STEPS)[number], string> = { balance: "process_engineer", "send-for-review": "environmental_officer", return: "signatory" };
+type Step = "balance" | "send-for-review" | "return";
+const ACTOR: Record<Step, string> = { balance: "process_engineer", "send-for-review": "environmental_officer", return: "signatory" };
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
