@@ -48,6 +48,22 @@ export async function freePort(): Promise<number> {
 export interface RunningApp {
   base: string;
   stop(): void;
+  /** Resident memory of the server process and its children (Next's workers), MiB, from /proc. */
+  rssMiB(): number;
+}
+
+/** VmRSS of a process and its descendants, from /proc (Linux). */
+function treeRssKiB(pid: number): number {
+  let kib = 0;
+  try {
+    const status = readFileSync(`/proc/${pid}/status`, "utf8");
+    kib += Number(/VmRSS:\s+(\d+)/.exec(status)?.[1] ?? 0);
+    const children = readFileSync(`/proc/${pid}/task/${pid}/children`, "utf8").trim().split(/\s+/).filter(Boolean).map(Number);
+    for (const c of children) kib += treeRssKiB(c);
+  } catch {
+    /* the process ended */
+  }
+  return kib;
 }
 
 export async function startApp(databaseUrl: string): Promise<RunningApp> {
@@ -82,7 +98,7 @@ export async function startApp(databaseUrl: string): Promise<RunningApp> {
   };
   for (let i = 0; i < 300; i++) {
     const up = await fetch(`${base}/api/v1/health`).then((r) => r.ok, () => false);
-    if (up) return { base, stop };
+    if (up) return { base, stop, rssMiB: () => treeRssKiB(child.pid!) / 1024 };
     if (child.exitCode !== null) break;
     await new Promise((r) => setTimeout(r, 200));
   }

@@ -12,7 +12,8 @@ import { hashPassword } from "../lib/auth/password";
 import { ROLES } from "../lib/auth/roles";
 
 export const BENCH_PASSWORD = "Bench#Ledger2026";
-export const SITE_COUNT = 50;
+/** 500 sites × 10 years by default (issue 19's scale); BENCH_SITES sets another fleet size. */
+export const SITE_COUNT = Number(process.env.BENCH_SITES ?? 500);
 export const FIRST_MONTH = "2016-01";
 export const LAST_MONTH = "2025-12";
 
