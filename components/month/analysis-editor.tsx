@@ -144,7 +144,7 @@ export function AnalysisEditor({ index, usedBy, previous, first, readOnly }: { i
           Add
         </button>
       </div>
-      <div className="mt-3 grid gap-2 sm:grid-cols-5">
+      <div className="mt-3 grid gap-2 sm:grid-cols-2 sm:items-end xl:grid-cols-3">
         <label className="text-xs text-ink-soft">
           Sampled on
           <input type="date" className={`${cell} num mt-0.5 block w-full`} {...register(`analyses.${index}.sampledOn`)} />
@@ -155,13 +155,13 @@ export function AnalysisEditor({ index, usedBy, previous, first, readOnly }: { i
           <input autoComplete="off" className={`${cell} mt-0.5 block w-full`} {...register(`analyses.${index}.laboratory`)} />
         </label>
         <label className="text-xs text-ink-soft">
-          Carbon content ± % (95 %)
-          <input inputMode="decimal" autoComplete="off" placeholder="set default" className={`${cell} num mt-0.5 block w-full text-right`} {...register(`analyses.${index}.carbonUncertaintyPct`)} />
+          Carbon ± % (95 %)
+          <input inputMode="decimal" autoComplete="off" placeholder="default" className={`${cell} num mt-0.5 block w-full text-right`} {...register(`analyses.${index}.carbonUncertaintyPct`)} />
           <FieldError id={`analysis-${index}-carbon-u-error`} message={errs?.carbonUncertaintyPct?.message} />
         </label>
         <label className="text-xs text-ink-soft">
           Calorific value ± % (95 %)
-          <input inputMode="decimal" autoComplete="off" placeholder="set default" className={`${cell} num mt-0.5 block w-full text-right`} {...register(`analyses.${index}.cvUncertaintyPct`)} />
+          <input inputMode="decimal" autoComplete="off" placeholder="default" className={`${cell} num mt-0.5 block w-full text-right`} {...register(`analyses.${index}.cvUncertaintyPct`)} />
           <FieldError id={`analysis-${index}-cv-u-error`} message={errs?.cvUncertaintyPct?.message} />
         </label>
         <label className="text-xs text-ink-soft">

@@ -153,11 +153,11 @@ export function StreamForm({ siteId, streamId, defaults, analysisKeys }: { siteI
       </div>
       {metered ? (
       <div className="grid gap-4 sm:grid-cols-5">
-        <FormField id="stream-unc" label="Uncertainty (%, 95 % confidence)" hint="Of the monthly total; used by reconciliation." error={err("uncertaintyPct")}>
+        <FormField id="stream-unc" label="Uncertainty (± %, 95 %)" hint="Of the monthly total; used by reconciliation." error={err("uncertaintyPct")}>
           <input id="stream-unc" inputMode="decimal" autoComplete="off" className={`${input} num text-right`} {...register("uncertaintyPct")} {...invalidProps("stream-unc", err("uncertaintyPct"))} />
         </FormField>
         <FormField id="stream-sys" label="Repeating share (%)" hint="Of the uncertainty, the part that repeats every month until the meter is recalibrated; empty: all of it." error={err("systematicPct")}>
-          <input id="stream-sys" inputMode="decimal" autoComplete="off" placeholder="100" className={`${input} num text-right`} {...register("systematicPct")} {...invalidProps("stream-sys", err("systematicPct"))} />
+          <input id="stream-sys" inputMode="decimal" autoComplete="off" className={`${input} num text-right`} {...register("systematicPct")} {...invalidProps("stream-sys", err("systematicPct"))} />
         </FormField>
         <FormField id="stream-tag" label="Meter tag" error={err("meterTag")}>
           <input id="stream-tag" autoComplete="off" className={`${input} num`} {...register("meterTag")} {...invalidProps("stream-tag", err("meterTag"))} />

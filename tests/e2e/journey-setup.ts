@@ -72,7 +72,7 @@ async function addStream(page: Page, siteId: string, s: JourneyStream): Promise<
   await page.getByLabel("Usual unit").selectOption(s.unit);
   if (s.analysisKey) await page.getByLabel("Analysis key", { exact: true }).fill(s.analysisKey);
   if (s.destination) await page.getByLabel("Destination").selectOption(s.destination);
-  await page.getByLabel("Uncertainty (%, 95 % confidence)").fill(s.uncertaintyPct);
+  await page.getByLabel("Uncertainty (± %, 95 %)").fill(s.uncertaintyPct);
   await page.getByLabel("Meter tag").fill(s.meterTag);
   await page.getByRole("button", { name: "Add stream" }).click();
   await page.waitForURL(new RegExp(`/settings/sites/${siteId}$`), { timeout: 20_000 });
