@@ -71,8 +71,8 @@ export function intensityRowsOfYear(y: YearResult, benchmarks: YearBenchmark[], 
   const gj = num(y.intensity.gj_lhv_per_t_nh3);
   rows.push({
     measure: "Energy per tonne NH3 (net calorific value), against the theoretical minimum",
-    value: { value: fixed(gj, 2), unit: "GJ/t NH3" },
-    benchmark: { value: fixed(theoreticalMin, 2), unit: "GJ/t NH3" },
+    value: { value: fixed(gj, 2), unit: "GJ NCV/t NH3" },
+    benchmark: { value: fixed(theoreticalMin, 2), unit: "GJ NCV/t NH3" },
     benchmarkSource: "theoretical minimum for the year's gas, weighted by monthly production",
     mark: "info",
     position: gj && theoreticalMin ? `Above the minimum by ${percentOver(gj, theoreticalMin)} %` : "No value this year",

@@ -81,8 +81,8 @@ function SquareDot(props: { cx?: number; cy?: number }) {
 
 export function EnergyChart({ rows }: { rows: ChartRow[] }) {
   const keys: SeriesKey[] = [
-    { key: "gj", name: "Energy", unit: "GJ/t NH3", places: 2 },
-    { key: "gjMin", name: "Theoretical minimum", unit: "GJ/t NH3", places: 2 },
+    { key: "gj", name: "Energy", unit: "GJ NCV/t NH3", places: 2 },
+    { key: "gjMin", name: "Theoretical minimum", unit: "GJ NCV/t NH3", places: 2 },
   ];
   return (
     <ChartFrame id="energy" title="Energy per tonne" unit="GJ (net calorific value) per t NH3" note="Feed and fuel together; the lower line is the theoretical minimum for the month's gas.">

@@ -103,7 +103,7 @@ export async function SiteYearCard({ organisationId, site, year }: { organisatio
             <div>
               <dt className="text-xs text-ink-soft">Energy, net calorific value</dt>
               <dd>
-                <QtyCell q={{ value: fixed(s.ytd.gj_lhv_per_t_nh3, 2), unit: "GJ/t NH3" }} strong />
+                <QtyCell q={{ value: fixed(s.ytd.gj_lhv_per_t_nh3, 2), unit: "GJ NCV/t NH3" }} strong />
                 <span className="block text-xs text-ink-soft">
                   theoretical minimum <span className="num">{fixed(s.ytd.theoretical_min_gj_lhv_per_t_nh3, 2)}</span> GJ/t
                 </span>

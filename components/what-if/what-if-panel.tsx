@@ -20,7 +20,7 @@ const ROWS: { key: keyof Figures; label: string; unit: string; places: number }[
   { key: "net_co2e_t", label: "Net CO2e", unit: "t CO2e", places: 1 },
   { key: "co2e_t_per_t_nh3", label: "CO2e intensity", unit: "t CO2e/t NH3", places: 3 },
   { key: "net_co2e_t_per_t_nh3", label: "Net CO2e intensity", unit: "t CO2e/t NH3", places: 3 },
-  { key: "gj_lhv_per_t_nh3", label: "Energy", unit: "GJ/t NH3", places: 2 },
+  { key: "gj_lhv_per_t_nh3", label: "Energy", unit: "GJ NCV/t NH3", places: 2 },
 ];
 
 /**
