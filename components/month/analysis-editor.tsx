@@ -144,7 +144,7 @@ export function AnalysisEditor({ index, usedBy, previous, first, readOnly }: { i
           Add
         </button>
       </div>
-      <div className="mt-3 grid gap-2 sm:grid-cols-2 sm:items-end xl:grid-cols-3">
+      <div className="mt-3 grid gap-2 sm:grid-cols-2 sm:items-end">
         <label className="text-xs text-ink-soft">
           Sampled on
           <input type="date" className={`${cell} num mt-0.5 block w-full`} {...register(`analyses.${index}.sampledOn`)} />
