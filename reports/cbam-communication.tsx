@@ -1,5 +1,5 @@
 import { Document, Page, Text, View } from "@react-pdf/renderer";
-import type { CbamCommunication } from "@/lib/ledger/cbam-communication";
+import { COMMUNICATION_FIGURE_ROWS, type CbamCommunication } from "@/lib/ledger/cbam-communication";
 import { fixed } from "@/reports/format";
 import { CautionsBlock, DeclarationBlock, InstallationBlock } from "./parts/blocks";
 import { Footer, RunningHead, TitleBlock } from "./parts/frame";
@@ -13,20 +13,6 @@ export interface CommunicationModel {
   signOff: SignOff;
   cautions: string[];
 }
-
-type FigureKey = keyof CbamCommunication["figures"];
-const FIGURE_ROWS: [FigureKey, string, number][] = [
-  ["production", "Ammonia produced", 1],
-  ["direct_emissions", "Direct emissions attributed", 1],
-  ["co2_to_urea_counted", "of which CO2 sent to urea (counted as emitted)", 1],
-  ["deducted", "Deducted (storage, precipitated calcium carbonate)", 1],
-  ["electricity", "Electricity consumed", 1],
-  ["electricity_factor", "Emission factor of the electricity", 4],
-  ["indirect_emissions", "Indirect emissions", 1],
-  ["see_direct", "Specific direct embedded emissions", 4],
-  ["see_indirect", "Specific indirect embedded emissions", 4],
-  ["see_total", "Specific embedded emissions, total", 4],
-];
 
 /** The communication of embedded emissions to importers, signed like the statements. */
 export function CommunicationStatement({ model: m }: { model: CommunicationModel }) {
@@ -61,14 +47,14 @@ export function CommunicationStatement({ model: m }: { model: CommunicationModel
         </Section>
 
         <Section n="2" title="Embedded emissions">
-          <DataTable<(typeof FIGURE_ROWS)[number]>
+          <DataTable<(typeof COMMUNICATION_FIGURE_ROWS)[number]>
             columns={[
               { title: "Figure", flex: 3.2, cell: ([, label]) => label },
               { title: "Value", flex: 1.6, numeric: true, cell: ([key, , places]) => (f[key].value === null ? "not computed" : fixed(f[key].value, places)) },
               { title: "Unit", flex: 1.3, cell: ([key]) => f[key].unit },
               { title: "How it was obtained", flex: 4.2, cell: ([key]) => <Text style={styles.small}>{f[key].how}</Text> },
             ]}
-            rows={FIGURE_ROWS}
+            rows={[...COMMUNICATION_FIGURE_ROWS]}
           />
           {d.shipment ? (
             <Text style={[styles.small, { marginTop: 4 }]}>

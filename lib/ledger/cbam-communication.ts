@@ -70,6 +70,20 @@ export const cbamCommunicationSchema = z.strictObject({
 
 export type CbamCommunication = z.infer<typeof cbamCommunicationSchema>;
 
+/** The figures in the order a reader takes them, with their labels and displayed decimals (the page and the PDF). */
+export const COMMUNICATION_FIGURE_ROWS: readonly [keyof CbamCommunication["figures"], string, number][] = [
+  ["production", "Ammonia produced", 1],
+  ["direct_emissions", "Direct emissions attributed", 1],
+  ["co2_to_urea_counted", "of which CO2 sent to urea (counted as emitted)", 1],
+  ["deducted", "Deducted (storage, precipitated calcium carbonate)", 1],
+  ["electricity", "Electricity consumed", 1],
+  ["electricity_factor", "Emission factor of the electricity", 4],
+  ["indirect_emissions", "Indirect emissions", 1],
+  ["see_direct", "Specific direct embedded emissions", 4],
+  ["see_indirect", "Specific indirect embedded emissions", 4],
+  ["see_total", "Specific embedded emissions, total", 4],
+];
+
 /** JSON Schema of the document (draft 2020-12), generated from the zod schema the API answers with. */
 export function cbamCommunicationJsonSchema() {
   return { $id: "/api/v1/schemas/cbam-communication.json", title: "Synledger communication of embedded emissions", ...z.toJSONSchema(cbamCommunicationSchema) };

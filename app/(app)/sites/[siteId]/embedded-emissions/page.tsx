@@ -8,7 +8,7 @@ import { buttonSecondary, input, label, link, pageTitle } from "@/components/ui/
 import { getDb } from "@/db";
 import { listStatements } from "@/db/queries/statements";
 import { can, requirePageActor } from "@/lib/auth/guard";
-import { buildCommunication, communicationPeriod, monthsBetween, type CbamCommunication } from "@/lib/ledger/cbam-communication";
+import { COMMUNICATION_FIGURE_ROWS, buildCommunication, communicationPeriod, monthsBetween } from "@/lib/ledger/cbam-communication";
 import { loadSiteRuns } from "@/lib/ledger/site-period";
 import { periodLabelOf } from "@/lib/statement-kind";
 import { fixed, utcStamp } from "@/reports/format";
@@ -17,21 +17,6 @@ import { signCommunicationAction } from "./actions";
 export const metadata: Metadata = { title: "Embedded emissions" };
 
 type Search = { from?: string; to?: string; shipped_t?: string };
-type FigureKey = keyof CbamCommunication["figures"];
-
-const ROWS: [FigureKey, string, number][] = [
-  ["production", "Ammonia produced", 1],
-  ["direct_emissions", "Direct emissions attributed", 1],
-  ["co2_to_urea_counted", "of which CO2 sent to urea", 1],
-  ["deducted", "Deducted", 1],
-  ["electricity", "Electricity consumed", 1],
-  ["electricity_factor", "Electricity emission factor", 4],
-  ["indirect_emissions", "Indirect emissions", 1],
-  ["see_direct", "Specific direct embedded emissions", 4],
-  ["see_indirect", "Specific indirect embedded emissions", 4],
-  ["see_total", "Specific embedded emissions, total", 4],
-];
-
 /**
  * The communication of embedded emissions to importers: the officer picks the period (and a
  * shipped quantity) and reads the draft; a signatory signs it, sealed like the statements with
@@ -87,7 +72,7 @@ export default async function EmbeddedEmissionsPage({ params, searchParams }: { 
         <Section id="draft" title={`Draft, ${periodLabelOf("cbam", `${p.from}..${p.to}`)}`} note="Unsigned: what a signatory will sign. Months not yet ended are never counted.">
           <FigureTable
             caption="Embedded emissions, draft"
-            rows={ROWS}
+            rows={[...COMMUNICATION_FIGURE_ROWS]}
             columns={[
               { title: "Figure", cell: ([, l]) => l },
               { title: "Value", numeric: true, cell: ([k, , places]) => <QtyCell q={{ value: doc.figures[k].value === null ? "not computed" : fixed(doc.figures[k].value, places), unit: doc.figures[k].unit }} /> },
