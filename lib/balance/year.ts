@@ -6,7 +6,7 @@ import { embeddedEmissions, CBAM_GOOD, type CbamFigures } from "../emissions/cba
 import { annualReportContent, etsBenchmark, monitoringCheck, type AnnualReportContent, type EtsBenchmark, type MonitoringCheck } from "../emissions/eu-ets";
 import { EU_MRR } from "../emissions/factor-sets/eu-mrr";
 import type { CalculationResult } from "./calculate";
-import { num } from "./decimal";
+import { ZERO, dec, num } from "./decimal";
 import { uncertaintyJson } from "./result-emissions";
 import type { PlantMonth } from "./schema";
 import type { Flag } from "./types";
@@ -26,10 +26,27 @@ export interface YearRollUp {
   /** Month warnings and errors carried up, prefixed with their month so none is lost in the total. */
   flags: Flag[];
   /** EU emissions trading monitoring check and CBAM embedded emissions of the months given (issue 14). */
+  eu: EuFigures;
+}
+
+export interface EuFigures {
   euEts: MonitoringCheck;
   etsBenchmark: EtsBenchmark | null;
   annualReport: AnnualReportContent;
   cbam: CbamFigures;
+}
+
+/** The EU trading-system check, the ammonia benchmark, the annual report content and CBAM of a year's months: one composition for the CLI, the pages and the statements. */
+export function euFiguresOf(entries: YearMonthEntry[], year: string): EuFigures {
+  const euEts = monitoringCheck(entries);
+  const co2e = entries.reduce((a, e) => a.plus(e.result.emissions.co2e_t), ZERO);
+  const nh3 = entries.reduce((a, e) => a.plus(dec(e.input.ammonia_t)), ZERO);
+  return { euEts, etsBenchmark: etsBenchmark(year, EU_MRR.benchmarks, co2e, nh3), annualReport: annualReportContent(entries, euEts, year), cbam: embeddedEmissions(entries) };
+}
+
+/** The year document's `eu_ets` and `cbam` objects (decimal strings). */
+export function euFiguresJson(eu: EuFigures) {
+  return { eu_ets: { ...euEtsJson(eu.euEts, eu.etsBenchmark), annual_report: annualReportJson(eu.annualReport) }, cbam: cbamJson(eu.cbam) };
 }
 
 /** Why a set of files cannot make one year: the offending file and the JSON path, or null when they can. */
@@ -53,14 +70,12 @@ export function rollUp(months: LoadedMonth[]): YearRollUp {
   const sorted = [...months].sort((a, b) => a.doc.month.localeCompare(b.doc.month));
   const entries: YearMonthEntry[] = sorted.map((m) => ({ month: m.doc.month, input: m.result.emissions.input, result: m.result.emissions.detail }));
   const year = rollUpYear(entries);
-  const euEts = monitoringCheck(entries);
+  const eu = euFiguresOf(entries, year.year);
   const monthFlags = sorted.flatMap((m) =>
     m.result.flags.filter((f) => f.severity !== "info").map((f) => ({ code: f.code, severity: f.severity, message: `${m.doc.month}: ${f.message}` })),
   );
   return {
-    site: sorted[0].doc.site, files: sorted, year, flags: [...year.flags, ...euEts.flags, ...monthFlags], euEts,
-    etsBenchmark: etsBenchmark(year.year, EU_MRR.benchmarks, year.emissions.co2e_t, year.ammonia_t), cbam: embeddedEmissions(entries),
-    annualReport: annualReportContent(entries, euEts, year.year),
+    site: sorted[0].doc.site, files: sorted, year, flags: [...year.flags, ...eu.euEts.flags, ...monthFlags], eu,
   };
 }
 
@@ -106,8 +121,7 @@ export function toYearDocument(y: YearRollUp) {
       co2e: uncertaintyJson(r.uncertainty.co2e),
       net_co2e: uncertaintyJson(r.uncertainty.net_co2e),
     },
-    eu_ets: { ...euEtsJson(y.euEts, y.etsBenchmark), annual_report: annualReportJson(y.annualReport) },
-    cbam: cbamJson(y.cbam),
+    ...euFiguresJson(y.eu),
     flags: y.flags,
   };
 }

@@ -10,10 +10,7 @@ import { parsePlantMonth, type InputIssue } from "@/lib/balance/schema";
 import { BUILT_IN_FACTOR_SETS } from "@/lib/emissions/registry";
 import { rollUpYear, type YearResult } from "@/lib/emissions/year";
 import { hasEnded } from "@/lib/period";
-import { annualReportJson, cbamJson, euEtsJson } from "@/lib/balance/year";
-import { embeddedEmissions } from "@/lib/emissions/cbam";
-import { annualReportContent, etsBenchmark, monitoringCheck } from "@/lib/emissions/eu-ets";
-import { EU_MRR } from "@/lib/emissions/factor-sets/eu-mrr";
+import { euFiguresJson, euFiguresOf } from "@/lib/balance/year";
 
 export type MonthStateName = "open" | "balanced" | "in_review" | "signed" | "submitted";
 
@@ -191,14 +188,8 @@ export function annualReadiness(year: string, runs: readonly Pick<MonthRun, "per
 export function yearEuEtsAndCbam(year: string, runs: readonly MonthRun[], now = new Date()) {
   const ok = endedRuns(runs, now).filter((r): r is MonthRun & { result: CalculationResult } => r.result !== null);
   if (ok.length === 0) return null;
-  const entries = ok.map((r) => ({ month: r.period, input: r.result.emissions.input, result: r.result.emissions.detail }));
-  const check = monitoringCheck(entries);
-  const co2e = entries.reduce((a, e) => a.plus(e.result.emissions.co2e_t), ZERO);
-  const nh3 = entries.reduce((a, e) => a.plus(new Dec(e.input.ammonia_t.toString())), ZERO);
-  return {
-    euEts: euEtsJson(check, etsBenchmark(year, EU_MRR.benchmarks, co2e, nh3)),
-    annualReport: annualReportJson(annualReportContent(entries, check, year)),
-    cbam: cbamJson(embeddedEmissions(entries)),
-    flags: check.flags,
-  };
+  const eu = euFiguresOf(ok.map((r) => ({ month: r.period, input: r.result.emissions.input, result: r.result.emissions.detail })), year);
+  const json = euFiguresJson(eu);
+  const { annual_report: annualReport, ...euEts } = json.eu_ets;
+  return { euEts, annualReport, cbam: json.cbam, flags: eu.euEts.flags };
 }
