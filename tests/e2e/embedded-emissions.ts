@@ -7,22 +7,11 @@
  */
 import { spawnSync } from "node:child_process";
 import { readFileSync } from "node:fs";
-import { DEMO_USERS } from "../../db/demo-users";
-import type { E2eKit } from "./lifecycle";
-
-const user = (role: string) => DEMO_USERS.find((u) => u.roles.includes(role as never))!;
+import { pageAsRole, type E2eKit } from "./lifecycle";
 
 export async function embeddedEmissionsChecks(k: E2eKit): Promise<void> {
   const assert: E2eKit["assert"] = k.assert;
-  const pageAs = async (role: string, width = k.viewport.width) => {
-    const page = await (await k.browser.newContext({ viewport: { width, height: k.viewport.height }, acceptDownloads: true })).newPage();
-    page.setDefaultTimeout(60_000);
-    page.setDefaultNavigationTimeout(90_000);
-    const u = user(role);
-    await k.signIn(page, u.email, u.password);
-    await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"), { timeout: 20_000 });
-    return page;
-  };
+  const pageAs = (role: string, width?: number) => pageAsRole(k, role, width);
   let prepared = "";
   const officer = await pageAs("environmental_officer", 1440);
 

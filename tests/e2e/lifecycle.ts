@@ -23,18 +23,21 @@ export interface E2eKit {
 const user = (role: string) => DEMO_USERS.find((u) => u.roles.includes(role as never))!;
 const SITE = "Estuary Works";
 
+/** A page signed in as the demo user holding `role`, downloads allowed, at the kit's viewport or `width`. */
+export async function pageAsRole(k: E2eKit, role: string, width = k.viewport.width) {
+  const page = await (await k.browser.newContext({ viewport: { width, height: k.viewport.height }, acceptDownloads: true })).newPage();
+  // The review page runs the engine on the stored month; a cold development server compiles first.
+  page.setDefaultTimeout(60_000);
+  page.setDefaultNavigationTimeout(90_000);
+  const u = user(role);
+  await k.signIn(page, u.email, u.password);
+  await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"), { timeout: 20_000 });
+  return page;
+}
+
 export async function lifecycleChecks(k: E2eKit): Promise<void> {
   const assert: E2eKit["assert"] = k.assert;
-  const pageAs = async (role: string) => {
-    const page = await (await k.browser.newContext({ viewport: k.viewport, acceptDownloads: true })).newPage();
-    // The review page runs the engine on the stored month; a cold development server compiles first.
-    page.setDefaultTimeout(60_000);
-    page.setDefaultNavigationTimeout(90_000);
-    const u = user(role);
-    await k.signIn(page, u.email, u.password);
-    await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"), { timeout: 20_000 });
-    return page;
-  };
+  const pageAs = (role: string) => pageAsRole(k, role);
   const act = async (page: Page, button: string, state: string) => {
     await page.getByRole("button", { name: button }).click();
     await page.getByText(`Done: the month is now ${state}`).waitFor({ timeout: 60_000 });
