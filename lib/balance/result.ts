@@ -63,9 +63,13 @@ export function emissionsPart(input: EmissionsInput, registry: FactorSetRegistry
  * restated exactly, whatever reference it was metered at.
  */
 export function standardScf68F(kmol: Dec, gas: GasProperties): Dec {
-  const T = REFERENCES["68F"].T;
-  const p = dec("14.7").times(PSI_PA);
-  return kmol.times(compressibility(gas, "68F")).times(R).times(T).div(p).times(1000).div(CUBIC_FOOT_M3);
+  return kmol.times(compressibility(gas, "68F")).times(idealScfPerKmol68F());
+}
+
+let idealScf68F: Dec | undefined;
+/** R·T/p at 68 °F and 14.7 psia in scf per kmol (ideal gas), worked out once rather than for every stream of every month. */
+function idealScfPerKmol68F(): Dec {
+  return (idealScf68F ??= R.times(REFERENCES["68F"].T).div(dec("14.7").times(PSI_PA)).times(1000).div(CUBIC_FOOT_M3));
 }
 
 export function buildEmissionsInput(
