@@ -80,3 +80,20 @@ const DAY_LABEL = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "lon
 
 /** "2026-12-31" → "31 December 2026" (UTC, a fixed locale: the same on every page and in every e-mail). */
 export const dayLabel = (iso: string): string => DAY_LABEL.format(new Date(`${iso}T00:00:00Z`));
+
+/** Every month key from `from` to `to` inclusive. */
+export function monthsBetween(from: string, to: string): string[] {
+  const out: string[] = [];
+  let y = Number(from.slice(0, 4));
+  let m = Number(from.slice(5, 7));
+  const end = Number(to.slice(0, 4)) * 12 + Number(to.slice(5, 7));
+  while (y * 12 + m <= end && out.length < 120) {
+    out.push(`${y}-${String(m).padStart(2, "0")}`);
+    m += 1;
+    if (m > 12) {
+      m = 1;
+      y += 1;
+    }
+  }
+  return out;
+}

@@ -12,7 +12,7 @@ import type { YearMonthEntry } from "@/lib/emissions/year";
 import { D } from "@/lib/emissions/decimal";
 import type { InstallationIdentity } from "@/lib/validations/installation";
 import { quoted } from "@/lib/auth/errors";
-import { currentMonthKey, isMonthKey, previousMonth } from "@/lib/period";
+import { currentMonthKey, isMonthKey, monthsBetween, previousMonth } from "@/lib/period";
 import type { MonthRun } from "./year";
 
 export const CBAM_COMMUNICATION_FORMAT = "synledger.cbam-communication/1";
@@ -87,23 +87,6 @@ export const COMMUNICATION_FIGURE_ROWS: readonly [keyof CbamCommunication["figur
 /** JSON Schema of the document (draft 2020-12), generated from the zod schema the API answers with. */
 export function cbamCommunicationJsonSchema() {
   return { $id: "/api/v1/schemas/cbam-communication.json", title: "Synledger communication of embedded emissions", ...z.toJSONSchema(cbamCommunicationSchema) };
-}
-
-/** Every month key from `from` to `to` inclusive. */
-export function monthsBetween(from: string, to: string): string[] {
-  const out: string[] = [];
-  let y = Number(from.slice(0, 4));
-  let m = Number(from.slice(5, 7));
-  const end = Number(to.slice(0, 4)) * 12 + Number(to.slice(5, 7));
-  while (y * 12 + m <= end && out.length < 120) {
-    out.push(`${y}-${String(m).padStart(2, "0")}`);
-    m += 1;
-    if (m > 12) {
-      m = 1;
-      y += 1;
-    }
-  }
-  return out;
 }
 
 export interface CommunicationInput {

@@ -8,8 +8,9 @@ import { buttonSecondary, input, label, link, pageTitle } from "@/components/ui/
 import { getDb } from "@/db";
 import { listStatements } from "@/db/queries/statements";
 import { can, requirePageActor } from "@/lib/auth/guard";
-import { COMMUNICATION_FIGURE_ROWS, buildCommunication, communicationPeriod, monthsBetween } from "@/lib/ledger/cbam-communication";
+import { COMMUNICATION_FIGURE_ROWS, buildCommunication, communicationPeriod } from "@/lib/ledger/cbam-communication";
 import { loadSiteRuns } from "@/lib/ledger/site-period";
+import { monthsBetween } from "@/lib/period";
 import { periodLabelOf } from "@/lib/statement-kind";
 import { fixed, utcStamp } from "@/reports/format";
 import { signCommunicationAction } from "./actions";

@@ -2,7 +2,8 @@ import { getDb } from "@/db";
 import { HttpError, notFound } from "@/lib/auth/errors";
 import { v1Route } from "@/lib/api/route";
 import { loadSiteRuns } from "@/lib/ledger/site-period";
-import { buildCommunication, communicationPeriod, monthsBetween } from "@/lib/ledger/cbam-communication";
+import { monthsBetween } from "@/lib/period";
+import { buildCommunication, communicationPeriod } from "@/lib/ledger/cbam-communication";
 
 type Params = { siteId: string };
 
