@@ -56,7 +56,9 @@ as_pg() {
 # Every parent of the data directory must be traversable by the postgres user.
 make_traversable() {
   is_root || return 0
-  local d="$1"
+  # Absolute first: dirname of a relative path ends at "." and would never reach "/".
+  local d
+  d="$(realpath -m "$1")"
   while [ "$d" != "/" ]; do
     if ! runuser -u postgres -- test -x "$d" 2>/dev/null; then chmod o+x "$d"; fi
     d="$(dirname "$d")"
