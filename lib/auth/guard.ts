@@ -3,12 +3,12 @@ import { redirect } from "next/navigation";
 import { cache } from "react";
 import { NextResponse } from "next/server";
 import { ZodError } from "zod";
-import { auth } from "@/auth";
 import { getDb } from "@/db";
 import { liveMembership, touchSession } from "@/db/queries/sessions";
 import { HttpError, forbidden, unauthorized, zodIssues } from "./errors";
 import { isRole, rolesGrant, type Permission, type Role } from "./roles";
 import { assertSameOrigin } from "./same-origin";
+import { sessionClaims } from "./session-token";
 import { storageRefusal } from "./storage-refusal";
 
 /** Who is acting, with the roles held in the active organisation as the database has them now. */
@@ -30,21 +30,20 @@ export interface Actor {
  * when the cookie expires. Cached per request: the layout and the page ask once between them.
  */
 export const currentActor = cache(async (): Promise<Actor | null> => {
-  const session = await auth();
-  const u = session?.user;
-  if (!u?.id || !u.organisationId || !u.sessionId) return null;
+  const claims = await sessionClaims();
+  if (!claims) return null;
   const db = getDb();
-  const m = await liveMembership(db, u.id, u.organisationId, u.sessionId);
+  const m = await liveMembership(db, claims.userId, claims.organisationId, claims.sessionId);
   if (!m) return null;
   const roles = m.roles.filter(isRole);
   if (roles.length === 0) return null;
-  await touchSession(db, u.sessionId, m.lastSeenAt);
+  await touchSession(db, claims.sessionId, m.lastSeenAt);
   return {
-    userId: u.id,
-    sessionId: u.sessionId,
-    name: u.name ?? u.email ?? "",
-    email: u.email ?? "",
-    organisationId: u.organisationId,
+    userId: claims.userId,
+    sessionId: claims.sessionId,
+    name: claims.name,
+    email: claims.email,
+    organisationId: claims.organisationId,
     organisationName: m.organisationName,
     roles,
   };

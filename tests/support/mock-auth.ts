@@ -1,9 +1,11 @@
 /**
- * Stand-in for `@/auth` in integration tests: `auth()` returns the session the test chose with
- * `actAs()`. Everything below it (guard, membership re-check, queries) is the real code against
- * the real PostgreSQL.
+ * Stand-in for `@/auth` and for the guard's cookie reader (`@/lib/auth/session-token`) in
+ * integration tests: both answer with the session the test chose with `actAs()`. Everything below
+ * them (guard, membership re-check, queries) is the real code against the real PostgreSQL; the
+ * cookie reader itself is tested in tests/integration/session-token.test.ts.
  */
 import type { Session } from "next-auth";
+import type { SessionClaims } from "@/lib/auth/session-token";
 
 let current: Session | null = null;
 
@@ -13,6 +15,12 @@ export function actAs(session: Session | null): void {
 
 export async function auth(): Promise<Session | null> {
   return current;
+}
+
+export async function sessionClaims(): Promise<SessionClaims | null> {
+  const u = current?.user;
+  if (!u?.id || !u.organisationId || !u.sessionId) return null;
+  return { userId: u.id, sessionId: u.sessionId, organisationId: u.organisationId, name: u.name ?? u.email ?? "", email: u.email ?? "" };
 }
 
 export async function signIn(): Promise<never> {
