@@ -1,5 +1,6 @@
-import { and, asc, eq, isNull, like } from "drizzle-orm";
+import { and, asc, eq, isNull, like, sql } from "drizzle-orm";
 import type { Db, Tx } from "../client";
+import { preparedQuery } from "../prepared";
 import { months, sites, streams } from "../schema";
 
 /** Fields of a site the API shows; never anything of another organisation. */
@@ -17,12 +18,17 @@ export const siteFields = {
 
 /** The organisation's active sites with their settings, by name. */
 export async function listSiteDetails(db: Db | Tx, organisationId: string) {
-  return db
+  return siteDetailsQuery(db).execute({ organisationId });
+}
+
+const siteDetailsQuery = preparedQuery((db) =>
+  db
     .select(siteFields)
     .from(sites)
-    .where(and(eq(sites.organisationId, organisationId), isNull(sites.archivedAt)))
-    .orderBy(asc(sites.name));
-}
+    .where(and(eq(sites.organisationId, sql.placeholder("organisationId")), isNull(sites.archivedAt)))
+    .orderBy(asc(sites.name))
+    .prepare("site_details"),
+);
 
 /** Streams of a site already checked to be the caller's, archived ones included (old months use them). */
 export async function listStreamsOfSite(db: Db | Tx, siteId: string) {

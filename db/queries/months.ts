@@ -1,5 +1,6 @@
-import { and, asc, eq } from "drizzle-orm";
+import { and, asc, eq, getTableColumns, sql } from "drizzle-orm";
 import type { Db, Tx } from "../client";
+import { preparedQuery } from "../prepared";
 import { gasAnalyses, months, readings, streams } from "../schema";
 import { findSite } from "./sites";
 
@@ -7,18 +8,35 @@ import { findSite } from "./sites";
 export async function loadMonthBundle(db: Db | Tx, organisationId: string, siteId: string, period: string) {
   const site = await findSite(db, organisationId, siteId);
   if (!site) return null;
-  const [month] = await db
-    .select()
-    .from(months)
-    .where(and(eq(months.siteId, site.id), eq(months.period, period)))
-    .limit(1);
-  const siteStreams = await db.select().from(streams).where(eq(streams.siteId, site.id)).orderBy(asc(streams.sortOrder), asc(streams.key));
-  const monthReadings = month ? await db.select().from(readings).where(eq(readings.monthId, month.id)) : [];
-  const monthAnalyses = month
-    ? await db.select().from(gasAnalyses).where(eq(gasAnalyses.monthId, month.id)).orderBy(asc(gasAnalyses.key))
-    : [];
+  const args = { siteId: site.id, period };
+  // One round of prepared queries once the site is known to be the organisation's.
+  const [[month], siteStreams, monthReadings, monthAnalyses] = await Promise.all([
+    bundleMonth(db).execute(args),
+    siteStreamsQuery(db).execute({ siteId: site.id }),
+    bundleReadings(db).execute(args),
+    bundleAnalyses(db).execute(args),
+  ]);
   return { site, month: month ?? null, streams: siteStreams, readings: monthReadings, analyses: monthAnalyses };
 }
+
+const ofSiteMonth = and(eq(months.siteId, sql.placeholder("siteId")), eq(months.period, sql.placeholder("period")));
+const bundleMonth = preparedQuery((db) => db.select().from(months).where(ofSiteMonth).limit(1).prepare("bundle_month"));
+/** Every stream of a site, archived ones included (old months use them), in the site's order. */
+export const siteStreamsQuery = preparedQuery((db) =>
+  db.select().from(streams).where(eq(streams.siteId, sql.placeholder("siteId"))).orderBy(asc(streams.sortOrder), asc(streams.key)).prepare("site_streams"),
+);
+const bundleReadings = preparedQuery((db) =>
+  db.select(getTableColumns(readings)).from(readings).innerJoin(months, eq(months.id, readings.monthId)).where(ofSiteMonth).prepare("bundle_readings"),
+);
+const bundleAnalyses = preparedQuery((db) =>
+  db
+    .select(getTableColumns(gasAnalyses))
+    .from(gasAnalyses)
+    .innerJoin(months, eq(months.id, gasAnalyses.monthId))
+    .where(ofSiteMonth)
+    .orderBy(asc(gasAnalyses.key))
+    .prepare("bundle_analyses"),
+);
 export type MonthBundle = NonNullable<Awaited<ReturnType<typeof loadMonthBundle>>>;
 
 /** Locks the month row for the rest of the transaction (creating it when new). */

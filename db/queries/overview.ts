@@ -1,8 +1,9 @@
-import { and, asc, eq, inArray, isNull, like, max } from "drizzle-orm";
+import { and, asc, desc, eq, getTableColumns, inArray, isNull, like, max, sql } from "drizzle-orm";
 import type { Db, Tx } from "../client";
-import { gasAnalyses, months, readings, sites, statements, streams } from "../schema";
+import { preparedQuery } from "../prepared";
+import { FROZEN_MONTH_STATES, gasAnalyses, months, monthSnapshots, readings, sites, statements, streams, type MonthSnapshotRow } from "../schema";
+import { siteStreamsQuery } from "./months";
 import { findSite, listSites } from "./sites";
-import { latestSnapshotsOf } from "./snapshots";
 
 /** The latest year in which any active site of the organisation has a month, or null. */
 export async function latestYearOfOrganisation(db: Db | Tx, organisationId: string): Promise<string | null> {
@@ -30,28 +31,51 @@ export type SiteRow = NonNullable<Awaited<ReturnType<typeof findSite>>>;
 export type StreamRow = typeof streams.$inferSelect;
 
 /**
- * Every stored row of one site's year in five queries (the engine runs are lib/ledger's): the
- * site, its streams, the months, their readings and analyses, and the snapshots of the months
- * that are frozen. Null when the site is not the organisation's.
+ * Every stored row of one site's year: the site (checked to be the organisation's) first, then in
+ * one round of prepared queries its streams, the months, their readings and analyses, and the
+ * latest snapshot of each frozen month's revision. Null when the site is not the organisation's.
+ * The year, the series, the overview, the ledger and the annual statement all read this.
  */
 export async function loadSiteYearRows(db: Db | Tx, organisationId: string, siteId: string, year: string) {
   const site = await findSite(db, organisationId, siteId);
   if (!site) return null;
-  const [siteStreams, monthRows] = await Promise.all([
-    db.select().from(streams).where(eq(streams.siteId, site.id)).orderBy(asc(streams.sortOrder), asc(streams.key)),
-    db.select().from(months).where(and(eq(months.siteId, site.id), like(months.period, `${year}-%`))).orderBy(asc(months.period)),
+  const args = { siteId: site.id, pattern: `${year}-%` };
+  const [siteStreams, monthRows, allReadings, allAnalyses, snapshotRows] = await Promise.all([
+    siteStreamsQuery(db).execute({ siteId: site.id }),
+    yearMonths(db).execute(args),
+    yearReadings(db).execute(args),
+    yearAnalyses(db).execute(args),
+    yearSnapshots(db).execute(args),
   ]);
-  const ids = monthRows.map((m) => m.id);
-  const frozen = monthRows.filter((m) => m.state === "in_review" || m.state === "signed" || m.state === "submitted");
-  const [allReadings, allAnalyses, snapshots] = ids.length
-    ? await Promise.all([
-        db.select().from(readings).where(inArray(readings.monthId, ids)),
-        db.select().from(gasAnalyses).where(inArray(gasAnalyses.monthId, ids)).orderBy(asc(gasAnalyses.key)),
-        latestSnapshotsOf(db, frozen.map((m) => ({ monthId: m.id, revision: m.revision }))),
-      ])
-    : [[], [], new Map()];
+  // Newest first: the first row of a month is its latest snapshot of the current revision.
+  const snapshots = new Map<string, MonthSnapshotRow>();
+  for (const r of snapshotRows) if (!snapshots.has(r.monthId)) snapshots.set(r.monthId, r);
   return { site, year, streams: siteStreams, months: monthRows, readings: allReadings, analyses: allAnalyses, snapshots };
 }
+
+const ofSiteYear = and(eq(months.siteId, sql.placeholder("siteId")), like(months.period, sql.placeholder("pattern")));
+const yearMonths = preparedQuery((db) => db.select().from(months).where(ofSiteYear).orderBy(asc(months.period)).prepare("year_months"));
+const yearReadings = preparedQuery((db) =>
+  db.select(getTableColumns(readings)).from(readings).innerJoin(months, eq(months.id, readings.monthId)).where(ofSiteYear).prepare("year_readings"),
+);
+const yearAnalyses = preparedQuery((db) =>
+  db
+    .select(getTableColumns(gasAnalyses))
+    .from(gasAnalyses)
+    .innerJoin(months, eq(months.id, gasAnalyses.monthId))
+    .where(ofSiteYear)
+    .orderBy(asc(gasAnalyses.key))
+    .prepare("year_analyses"),
+);
+const yearSnapshots = preparedQuery((db) =>
+  db
+    .select(getTableColumns(monthSnapshots))
+    .from(monthSnapshots)
+    .innerJoin(months, and(eq(months.id, monthSnapshots.monthId), eq(monthSnapshots.revision, months.revision)))
+    .where(and(ofSiteYear, inArray(months.state, [...FROZEN_MONTH_STATES])))
+    .orderBy(desc(monthSnapshots.seq))
+    .prepare("year_snapshots"),
+);
 export type SiteYearRows = NonNullable<Awaited<ReturnType<typeof loadSiteYearRows>>>;
 
 /** The organisation's active sites and the year the overview shows (the latest with months). */

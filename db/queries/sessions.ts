@@ -1,5 +1,6 @@
 import { and, desc, eq, isNull, ne, sql } from "drizzle-orm";
 import type { Db, Tx } from "../client";
+import { preparedQuery } from "../prepared";
 import { memberships, organisations, userSessions, users } from "../schema";
 
 export type SessionEndReason = "signed-out" | "signed-out-everywhere" | "password-changed" | "disabled" | "roles-removed" | "ended-by-holder";
@@ -51,16 +52,29 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
  */
 export async function liveMembership(db: Db | Tx, userId: string, organisationId: string, sessionId: string) {
   if (!UUID.test(userId) || !UUID.test(organisationId) || !UUID.test(sessionId)) return null;
-  const [row] = await db
+  const [row] = await liveMembershipQuery(db).execute({ userId, organisationId, sessionId });
+  return row ?? null;
+}
+
+// Run on every request of a signed-in person, so prepared (db/prepared.ts).
+const liveMembershipQuery = preparedQuery((db) =>
+  db
     .select({ roles: memberships.roles, organisationName: organisations.name, lastSeenAt: userSessions.lastSeenAt })
     .from(memberships)
     .innerJoin(organisations, eq(organisations.id, memberships.organisationId))
     .innerJoin(users, eq(users.id, memberships.userId))
-    .innerJoin(userSessions, and(eq(userSessions.userId, users.id), eq(userSessions.id, sessionId)))
-    .where(and(eq(memberships.userId, userId), eq(memberships.organisationId, organisationId), eq(users.disabled, false), isNull(userSessions.endedAt)))
-    .limit(1);
-  return row ?? null;
-}
+    .innerJoin(userSessions, and(eq(userSessions.userId, users.id), eq(userSessions.id, sql.placeholder("sessionId"))))
+    .where(
+      and(
+        eq(memberships.userId, sql.placeholder("userId")),
+        eq(memberships.organisationId, sql.placeholder("organisationId")),
+        eq(users.disabled, false),
+        isNull(userSessions.endedAt),
+      ),
+    )
+    .limit(1)
+    .prepare("live_membership"),
+);
 
 /** Records use of a session at most every five minutes, so reading a page is not a write each time. */
 export async function touchSession(db: Db | Tx, sessionId: string, lastSeenAt: Date): Promise<void> {

@@ -1,5 +1,6 @@
-import { and, asc, eq, gte, isNull, lte } from "drizzle-orm";
+import { and, asc, eq, gte, isNull, lte, sql } from "drizzle-orm";
 import type { Db, Tx } from "../client";
+import { preparedQuery } from "../prepared";
 import { months, sites } from "../schema";
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
@@ -19,13 +20,19 @@ export async function listSites(db: Db | Tx, organisationId: string) {
  */
 export async function findSite(db: Db | Tx, organisationId: string, siteId: string) {
   if (!UUID.test(siteId)) return null;
-  const [row] = await db
-    .select()
-    .from(sites)
-    .where(and(eq(sites.id, siteId), eq(sites.organisationId, organisationId)))
-    .limit(1);
+  const [row] = await findSiteQuery(db).execute({ siteId, organisationId });
   return row ?? null;
 }
+
+// Every site page and site route starts here, so prepared (db/prepared.ts).
+const findSiteQuery = preparedQuery((db) =>
+  db
+    .select()
+    .from(sites)
+    .where(and(eq(sites.id, sql.placeholder("siteId")), eq(sites.organisationId, sql.placeholder("organisationId"))))
+    .limit(1)
+    .prepare("find_site"),
+);
 
 /** The month record of a site, if anybody has started it. The site must already be checked. */
 export async function findMonth(db: Db | Tx, siteId: string, period: string) {

@@ -1,4 +1,4 @@
-import { and, desc, eq, inArray, sql } from "drizzle-orm";
+import { and, desc, eq, sql } from "drizzle-orm";
 import type { Db, Tx } from "../client";
 import { monthSnapshots, type MonthSnapshotRow } from "../schema";
 
@@ -23,20 +23,6 @@ export async function latestSnapshot(db: Db | Tx, monthId: string, revision: num
     .orderBy(desc(monthSnapshots.seq))
     .limit(1);
   return row ?? null;
-}
-
-/** The latest snapshot of each given (month, revision), keyed by month id. */
-export async function latestSnapshotsOf(db: Db | Tx, wanted: { monthId: string; revision: number }[]): Promise<Map<string, MonthSnapshotRow>> {
-  const out = new Map<string, MonthSnapshotRow>();
-  if (wanted.length === 0) return out;
-  const rows = await db
-    .select()
-    .from(monthSnapshots)
-    .where(inArray(monthSnapshots.monthId, wanted.map((w) => w.monthId)))
-    .orderBy(desc(monthSnapshots.seq));
-  const revisionOf = new Map(wanted.map((w) => [w.monthId, w.revision]));
-  for (const r of rows) if (r.revision === revisionOf.get(r.monthId) && !out.has(r.monthId)) out.set(r.monthId, r);
-  return out;
 }
 
 export async function snapshotById(db: Db | Tx, organisationId: string, id: string): Promise<MonthSnapshotRow | null> {

@@ -18,6 +18,9 @@ export const monthStateEnum = pgEnum("month_state", [
   "submitted",
 ]);
 
+/** States whose figures are frozen in a snapshot: nobody edits them until a reopen. */
+export const FROZEN_MONTH_STATES = ["in_review", "signed", "submitted"] as const satisfies readonly (typeof monthStateEnum.enumValues)[number][];
+
 export const streamKindEnum = pgEnum("stream_kind", [
   "feed-gas",
   "fuel-gas",

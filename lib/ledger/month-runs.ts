@@ -22,9 +22,9 @@ import type { StreamFacts } from "@/reports/build-model";
 import { calculateMonth, type MonthCalculation } from "./calculate-month";
 import { canonicalJson, freezeCalculation, sha256Of, thawCalculation } from "./freeze";
 import type { MonthDocumentInput } from "./month-document";
+import { FROZEN_MONTH_STATES } from "@/db/schema/enums";
 
-export const FROZEN_STATES = ["in_review", "signed", "submitted"] as const;
-export const isFrozenState = (state: string | null | undefined): boolean => (FROZEN_STATES as readonly string[]).includes(state ?? "");
+export const isFrozenState = (state: string | null | undefined): boolean => (FROZEN_MONTH_STATES as readonly string[]).includes(state ?? "");
 
 /** What the statement prints beside the figures, as it was when the month was frozen. */
 export interface SnapshotContext {
