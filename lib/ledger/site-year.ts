@@ -5,9 +5,11 @@ import "server-only";
  * What the year page, the series endpoint, the exports, the overview, the trends, the what-if
  * and the annual statement all read.
  */
+import { createHash } from "node:crypto";
 import type { Db, Tx } from "@/db/client";
 import { loadSiteYearRows, type SiteRow, type StreamRow } from "@/db/queries/overview";
-import { cachedCalculation, documentInput, isFrozenState, runOfSnapshot, type FrozenFacts } from "./month-runs";
+import { currentMonthKey } from "@/lib/period";
+import { cachedCalculation, calculationKey, documentInput, isFrozenState, runOfSnapshot, type FrozenFacts } from "./month-runs";
 import { buildSeries, type YearSeries } from "./series";
 import { rollUpRuns, type MonthRun } from "./year";
 
@@ -18,6 +20,11 @@ export interface SiteYear {
   runs: MonthRun[];
   /** Snapshot facts of the frozen months, by period. */
   frozen: Map<string, FrozenFacts>;
+  /**
+   * A hash of everything the runs were made from (the site, its streams, each month's record
+   * and either the exact engine input or the snapshot read): equal fingerprints, equal year.
+   */
+  fingerprint: string;
 }
 
 /**
@@ -38,6 +45,7 @@ export async function loadSiteYear(
   // A stream no meter measures is not a missing reading: the balances give its figure.
   const active = new Set(streams.filter((s) => s.archivedAt === null && s.metered !== false).map((s) => s.id));
   const frozen = new Map<string, FrozenFacts>();
+  const sources: unknown[] = [site, streams, year, only ? [...only].sort() : null];
 
   const runs: MonthRun[] = rows.months.filter((m) => !only || only.has(m.period)).map((m) => {
     const monthReadings = rows.readings.filter((r) => r.monthId === m.id);
@@ -54,21 +62,38 @@ export async function loadSiteYear(
     if (snapshot) {
       const f = runOfSnapshot(snapshot);
       frozen.set(m.period, f.frozen);
+      sources.push(base, snapshot.id);
       return { ...base, document: f.document, result: f.result, issues: [], frozen: true };
     }
     const input = documentInput(
       { site, month: m, streams, readings: monthReadings, analyses: rows.analyses.filter((a) => a.monthId === m.id) },
       m.period,
     );
-    const calc = cachedCalculation(input, site.closureTolerancePct);
+    const key = calculationKey(input, site.closureTolerancePct);
+    sources.push(base, key);
+    const calc = cachedCalculation(input, site.closureTolerancePct, key);
     return { ...base, document: calc.document, result: calc.ok ? calc.result : null, issues: calc.ok ? [] : calc.issues, frozen: false };
   });
-  return { site, year, streams, runs, frozen };
+  const fingerprint = createHash("sha256").update(JSON.stringify(sources)).digest("hex");
+  return { site, year, streams, runs, frozen, fingerprint };
 }
+
+/**
+ * Series already built, by the year's fingerprint and the current month (the only thing of the
+ * clock a series reads). The series endpoint, the overview's cards and the ledger ask for the
+ * same unchanged years again and again; rolling up twelve months in Decimal is most of the work.
+ * Callers treat the answer as read-only.
+ */
+const SERIES_MAX = 4000;
+const g = globalThis as unknown as { __synledgerSeriesCache?: Map<string, YearSeries> };
+const seriesCache = (g.__synledgerSeriesCache ??= new Map());
 
 /** The series of a loaded year (see lib/ledger/series.ts). */
 export function seriesOf(y: SiteYear, now = new Date()): YearSeries {
-  return buildSeries({
+  const key = `${y.fingerprint}|${currentMonthKey(now)}`;
+  const hit = seriesCache.get(key);
+  if (hit) return hit;
+  const series = buildSeries({
     site: y.site,
     year: y.year,
     runs: y.runs,
@@ -76,4 +101,7 @@ export function seriesOf(y: SiteYear, now = new Date()): YearSeries {
     rollUp: rollUpRuns(y.runs, now),
     now,
   });
+  seriesCache.set(key, series);
+  if (seriesCache.size > SERIES_MAX) seriesCache.delete(seriesCache.keys().next().value!);
+  return series;
 }

@@ -3,20 +3,21 @@
  * organisation: every figure must equal what the engine computes for the same months directly
  * (calculate on lib/demo's documents, rollUpYear over them), through the real handlers.
  */
-import { count, eq } from "drizzle-orm";
+import { and, count, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { siteSummary } from "@/components/overview/site-summary";
 import { attentionItems } from "@/components/overview/attention";
 import { loadSiteYear, seriesOf } from "@/lib/ledger/site-year";
 import { seedDemoSites } from "@/db/seed-sites";
-import { apiTokens, auditEvents, months, sites } from "@/db/schema";
+import { apiTokens, auditEvents, months, readings, sites, streams } from "@/db/schema";
 import { hashApiToken } from "@/lib/api/tokens";
 import { calculate } from "@/lib/balance/calculate";
 import { Dec, num } from "@/lib/balance/decimal";
 import { rollUpYear } from "@/lib/emissions/year";
 import { demoSeedMonths } from "@/lib/demo/scenario";
 import { hasEnded } from "@/lib/period";
-import { endedRuns } from "@/lib/ledger/year";
+import { endedRuns, rollUpRuns } from "@/lib/ledger/year";
+import { buildSeries } from "@/lib/ledger/series";
 import { closeTestDb, testDb } from "../support/db";
 import { createOrg, type FixtureOrg } from "../support/fixtures";
 import { actAs } from "../support/mock-auth";
@@ -146,6 +147,49 @@ describe("GET /api/v1/sites/{siteId}/years/{year}/series", () => {
     expect(body.format).toBe("synledger.year-series/1");
     expect(body.months).toHaveLength(12);
     expect(body.suspect_meters[0].months).toEqual(["2026-10"]);
+  });
+});
+
+describe("series kept in memory never outlive their figures", () => {
+  // The series of an unchanged year is served from memory (lib/ledger/site-year.ts); any change
+  // to what it was made from, even one written to the database by hand, must give a new one.
+  const fresh = (y: NonNullable<Awaited<ReturnType<typeof loadSiteYear>>>, now: Date) =>
+    buildSeries({ site: y.site, year: y.year, runs: y.runs, streams: y.streams.map((s) => ({ key: s.key, name: s.name, meterTag: s.meterTag })), rollUp: rollUpRuns(y.runs, now), now });
+
+  it("a reading changed in the database gives a new series, equal to one built afresh", async () => {
+    const db = testDb();
+    const mine = await createOrg(db, "Series memory");
+    await db.transaction((tx) => seedDemoSites(tx, mine.id));
+    const [site] = await db.select().from(sites).where(and(eq(sites.organisationId, mine.id), eq(sites.code, "estuary")));
+    const now = new Date(`${YEAR}-12-15T00:00:00Z`);
+    const before = (await loadSiteYear(db, mine.id, site.id, YEAR))!;
+    const first = seriesOf(before, now);
+    expect(seriesOf((await loadSiteYear(db, mine.id, site.id, YEAR))!, now)).toBe(first);
+
+    // An ended month that is still editable (not frozen), and its ammonia reading.
+    const open = before.runs.find((r) => !r.frozen && r.result && hasEnded(r.period, now))!;
+    const [nh3] = await db.select({ id: streams.id }).from(streams).where(and(eq(streams.siteId, site.id), eq(streams.kind, "ammonia")));
+    const [reading] = await db.select().from(readings).where(and(eq(readings.monthId, open.id), eq(readings.streamId, nh3.id)));
+    await db.update(readings).set({ quantity: new Dec(reading.quantity).times("1.01").toFixed() }).where(eq(readings.id, reading.id));
+
+    const after = (await loadSiteYear(db, mine.id, site.id, YEAR))!;
+    expect(after.fingerprint).not.toBe(before.fingerprint);
+    const second = seriesOf(after, now);
+    expect(second).not.toBe(first);
+    expect(second).toEqual(fresh(after, now));
+    const month = (s: typeof first) => s.months.find((m) => m.month === open.period)!;
+    expect(month(second).ammonia_t).not.toBe(month(first).ammonia_t);
+  });
+
+  it("a new month on the clock gives a new series: the running month leaves the totals once it ends", async () => {
+    const db = testDb();
+    const y = (await loadSiteYear(db, org.id, estuaryId, YEAR))!;
+    const nov = new Date(`${YEAR}-11-20T00:00:00Z`);
+    const dec = new Date(`${YEAR}-12-02T00:00:00Z`);
+    expect(seriesOf(y, nov)).toEqual(fresh(y, nov));
+    expect(seriesOf(y, dec)).toEqual(fresh(y, dec));
+    expect(seriesOf(y, dec).months.find((m) => m.month === `${YEAR}-11`)!.timing).toBe("ended");
+    expect(seriesOf(y, nov).months.find((m) => m.month === `${YEAR}-11`)!.timing).toBe("in-progress");
   });
 });
 
