@@ -74,7 +74,8 @@ try {
   const site = fleet.siteIds[Math.floor(SITE_COUNT / 2)];
   const targets = [
     { label: "health (no session, no database)", path: "/api/v1/health" },
-    { label: `GET /api/v1/sites (${SITE_COUNT} sites)`, path: "/api/v1/sites", headers: signedIn },
+    { label: `GET /api/v1/sites (first page: 100 of ${SITE_COUNT} sites)`, path: "/api/v1/sites", headers: signedIn },
+    { label: `GET /api/v1/sites?limit=500 (all ${SITE_COUNT} sites in one answer)`, path: "/api/v1/sites?limit=500", headers: signedIn },
     { label: "GET a year's series (twelve months by the engine)", path: `/api/v1/sites/${site}/years/2021/series`, headers: signedIn },
 
     { label: `GET one month (${Math.round(fleet.readings / fleet.months)} readings, 2 analyses)`, path: `/api/v1/sites/${site}/months/2021-06`, headers: signedIn },

@@ -16,18 +16,30 @@ export const siteFields = {
   archivedAt: sites.archivedAt,
 };
 
-/** The organisation's active sites with their settings, by name. */
-export async function listSiteDetails(db: Db | Tx, organisationId: string) {
-  return siteDetailsQuery(db).execute({ organisationId });
+/**
+ * One page of the organisation's active sites with their settings, by name then id: at most
+ * `limit`, after the site named by `after` when given. One more row is read than answered, so
+ * the caller knows whether a next page exists.
+ */
+export async function listSiteDetails(db: Db | Tx, organisationId: string, limit: number, after?: { name: string; id: string }) {
+  const rows = after
+    ? await siteDetailsAfterQuery(db).execute({ organisationId, limit: limit + 1, afterName: after.name, afterId: after.id })
+    : await siteDetailsQuery(db).execute({ organisationId, limit: limit + 1 });
+  return { sites: rows.slice(0, limit), more: rows.length > limit };
 }
 
+const activeOfOrganisation = and(eq(sites.organisationId, sql.placeholder("organisationId")), isNull(sites.archivedAt));
 const siteDetailsQuery = preparedQuery((db) =>
+  db.select(siteFields).from(sites).where(activeOfOrganisation).orderBy(asc(sites.name), asc(sites.id)).limit(sql.placeholder("limit")).prepare("site_details"),
+);
+const siteDetailsAfterQuery = preparedQuery((db) =>
   db
     .select(siteFields)
     .from(sites)
-    .where(and(eq(sites.organisationId, sql.placeholder("organisationId")), isNull(sites.archivedAt)))
-    .orderBy(asc(sites.name))
-    .prepare("site_details"),
+    .where(and(activeOfOrganisation, sql`(${sites.name}, ${sites.id}) > (${sql.placeholder("afterName")}::text, ${sql.placeholder("afterId")}::uuid)`))
+    .orderBy(asc(sites.name), asc(sites.id))
+    .limit(sql.placeholder("limit"))
+    .prepare("site_details_after"),
 );
 
 /** Streams of a site already checked to be the caller's, archived ones included (old months use them). */

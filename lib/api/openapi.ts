@@ -33,7 +33,23 @@ export const openApiDocument = {
   paths: {
     ...otherPaths,
     "/api/v1/sites": {
-      get: { summary: "Active sites of your organisation", responses: responses(json({ type: "object", properties: { sites: { type: "array", items: ref("Site") } } }), ["401", "403"]) },
+      get: {
+        summary: "Active sites of your organisation, by name, a page at a time",
+        parameters: [
+          { name: "limit", in: "query", required: false, description: "sites per page, 1 to 500; default 100", schema: { type: "integer", minimum: 1, maximum: 500, default: 100 } },
+          { name: "after", in: "query", required: false, description: "the `next` of the previous page", schema: { type: "string", maxLength: 400 } },
+        ],
+        responses: responses(
+          json({
+            type: "object",
+            properties: {
+              sites: { type: "array", items: ref("Site") },
+              next: { type: ["string", "null"], description: "pass as `after` for the following page; null on the last page" },
+            },
+          }),
+          ["400", "401", "403"],
+        ),
+      },
     },
     "/api/v1/sites/{siteId}": {
       get: { summary: "One site and its settings", parameters: site, responses: responses(json({ type: "object", properties: { site: ref("Site") } }), ["401", "403", "404"]) },

@@ -15,7 +15,7 @@ const streamsRoute = await import("@/app/api/v1/sites/[siteId]/streams/route");
 let org: FixtureOrg;
 let other: FixtureOrg;
 
-const listSites = () => sitesRoute.GET(request("GET", "/api/v1/sites"), ctx({}));
+const listSites = (query = "") => sitesRoute.GET(request("GET", `/api/v1/sites${query}`), ctx({}));
 const getSite = (siteId: string) => siteRoute.GET(request("GET", `/api/v1/sites/${siteId}`), ctx({ siteId }));
 const getStreams = (siteId: string) => streamsRoute.GET(request("GET", `/api/v1/sites/${siteId}/streams`), ctx({ siteId }));
 
@@ -42,6 +42,47 @@ describe("GET /api/v1/sites", () => {
   it("401 signed out", async () => {
     actAs(null);
     expect(await errorOf(await listSites())).toEqual({ code: "unauthorized", message: "Sign in first." });
+  });
+
+  it("pages through a fleet by name: every active site once, in order, next null on the last page", async () => {
+    const fleet = await createOrg(testDb(), "ApiSitesFleet");
+    // Two sites share a name, so the order (and the cursor) must fall back to the id.
+    const names = ["Alder works", "Birch works", "Birch works", "Cedar works", "Dune works", "Elm works", "Fen works"];
+    await testDb().insert(sites).values(names.map((name, i) => ({ organisationId: fleet.id, name, code: `fl${i}-${fleet.id.slice(0, 6)}` })));
+    actAs(fleet.session("auditor"));
+    const all = await (await listSites("?limit=500")).json();
+    expect(all.next).toBeNull();
+    const expected = all.sites.map((s: { id: string }) => s.id);
+    expect(expected).toHaveLength(names.length + 1); // the fixture's own site too
+    const seen: string[] = [];
+    let query = "?limit=3";
+    for (let page = 0; page < 10; page++) {
+      const body = await (await listSites(query)).json();
+      expect(body.sites.length).toBeLessThanOrEqual(3);
+      seen.push(...body.sites.map((s: { id: string }) => s.id));
+      if (!body.next) break;
+      query = `?limit=3&after=${encodeURIComponent(body.next)}`;
+    }
+    expect(seen).toEqual(expected);
+    const byName = all.sites.map((s: { name: string }) => s.name);
+    expect(byName).toEqual([...byName].sort((a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0)));
+  });
+
+  it("answers 100 sites unless asked, and names the parameter of a bad limit or cursor", async () => {
+    actAs(org.session("auditor"));
+    expect((await (await listSites()).json()).next).toBeNull();
+    for (const [query, path, message] of [
+      ["?limit=0", "limit", "limit must be at least 1"],
+      ["?limit=501", "limit", "limit must be at most 500"],
+      ["?limit=2.5", "limit", "limit must be a whole number"],
+      ["?limit=ten", "limit", "limit must be a whole number"],
+      ["?after=bm90LWEtY3Vyc29y", "after", "after is not a cursor this API gave; pass the `next` of the previous page"],
+      [`?after=${Buffer.from(JSON.stringify(["x", "'; drop table sites; --"])).toString("base64url")}`, "after", "after is not a cursor this API gave; pass the `next` of the previous page"],
+    ] as const) {
+      const res = await listSites(query);
+      expect(res.status, query).toBe(400);
+      expect((await errorOf(res)).issues, query).toEqual([{ path, message }]);
+    }
   });
 });
 
