@@ -48,10 +48,12 @@ function unexpired(claims: JWT | null): claims is JWT {
  * pages' proxy still refreshes the cookie as Auth.js does.
  */
 export async function sessionClaims(): Promise<SessionClaims | null> {
-  const secret = process.env.AUTH_SECRET;
-  if (!secret) return null;
+  // The request's headers first, whatever happens next: reading them is what tells Next that a
+  // page depends on who asks. Returning before it (no secret at build time) would let the build
+  // render a signed-in page once, as a redirect to sign-in, and serve that to everyone.
   const cookie = (await headers()).get("cookie");
-  if (!cookie) return null;
+  const secret = process.env.AUTH_SECRET;
+  if (!cookie || !secret) return null;
   const req = { headers: new Headers({ cookie }) };
   for (const cookieName of COOKIE_NAMES) {
     const claims = await getToken({ req, secret, cookieName, salt: cookieName, secureCookie: cookieName.startsWith("__Secure-"), decode: memoDecode, logger: quiet });

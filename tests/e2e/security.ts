@@ -69,6 +69,16 @@ export async function securityChecks(k: SecurityKit): Promise<void> {
   const assert: (cond: unknown, message: string) => asserts cond = k.assert;
   let session = "";
 
+  await check("security: the build prerendered no signed-in page (each reads its request, so none is served the same to everyone)", async () => {
+    // A page that decides who is asking without reading the request is rendered once at build
+    // time; its answer (a redirect to sign-in) would then be served to every visitor.
+    const dist = process.env.NEXT_DIST_DIR ?? ".next";
+    const manifest = JSON.parse(readFileSync(`${dist}/prerender-manifest.json`, "utf8")) as { routes: Record<string, unknown> };
+    const PUBLIC = new Set(["/_global-error", "/_not-found", "/verify", "/sign-in", "/forbidden"]);
+    const prerendered = Object.keys(manifest.routes).filter((r) => !PUBLIC.has(r));
+    assert(prerendered.length === 0, `prerendered at build time: ${prerendered.join(", ")}`);
+  });
+
   await check("security: signing in through Auth.js sets an HttpOnly, SameSite=Lax session cookie (not Secure over plain HTTP)", async () => {
     const r = await credentialsCallback(base, auditor.email, auditor.password, { "x-forwarded-for": fakeIp() });
     const line = r.lines.find((l) => l.startsWith("authjs.session-token="));
