@@ -5,6 +5,7 @@
  */
 import { STATE_LABELS, type MonthState } from "@/lib/lifecycle/transitions";
 import { fixed, signed } from "@/reports/format";
+import { UUID } from "@/db/queries/uuid";
 
 const ENTITY_LABELS: Record<string, string> = {
   reading: "Reading",
@@ -133,7 +134,6 @@ export function fieldLabel(field: string): string {
   return FIELD_LABELS[field] ?? field.replace(/([a-z])([A-Z])/g, "$1 $2").replace(/[_.]/g, " ").toLowerCase();
 }
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 const DECIMAL = /^-?\d+\.(\d+)$/;
 
 /** An identifier the trail keeps for machines; the page names the record instead. */

@@ -2,6 +2,7 @@ import "server-only";
 import { and, desc, eq } from "drizzle-orm";
 import type { Db, Tx } from "../client";
 import { attachments, months, streams, users } from "../schema";
+import { UUID } from "./uuid";
 
 /** Everything but the content, so lists never pull file bytes out of the database. */
 const meta = {
@@ -33,7 +34,6 @@ export async function listMonthAttachments(db: Db | Tx, organisationId: string, 
     .orderBy(desc(attachments.createdAt));
 }
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /** One attachment's metadata, only within the organisation (anything else reads as not found). */
 export async function findAttachment(db: Db | Tx, organisationId: string, id: string) {

@@ -2,6 +2,7 @@ import { and, asc, count, desc, eq, gte, ilike, inArray, lt, sql, type SQL } fro
 import type { Db, Tx } from "../client";
 import { apiTokens, attachments, auditEvents, importBatches, invitations, memberships, months, signingCertificates, sites, statements, streams, users } from "../schema";
 import type { Channel } from "./audit";
+import { UUID } from "./uuid";
 
 export interface AuditTrailFilter {
   siteId?: string;
@@ -81,7 +82,6 @@ export async function auditSites(db: Db | Tx, organisationId: string) {
     .orderBy(asc(sites.name));
 }
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 const MONTH_NAMES = ["January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December"];
 const monthWords = (period: string) => `${MONTH_NAMES[Number(period.slice(5, 7)) - 1] ?? "?"} ${period.slice(0, 4)}`;
 

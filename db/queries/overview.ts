@@ -4,6 +4,7 @@ import { preparedQuery } from "../prepared";
 import { FROZEN_MONTH_STATES, gasAnalyses, months, monthSnapshots, readings, sites, statements, streams, type MonthSnapshotRow } from "../schema";
 import { siteStreamsQuery } from "./months";
 import { findSite, listSites } from "./sites";
+import { UUID } from "./uuid";
 
 /** The latest year in which any active site of the organisation has a month, or null. */
 export async function latestYearOfOrganisation(db: Db | Tx, organisationId: string): Promise<string | null> {
@@ -76,6 +77,25 @@ const yearSnapshots = preparedQuery((db) =>
     .orderBy(desc(monthSnapshots.seq))
     .prepare("year_snapshots"),
 );
+/**
+ * The site's data version (see sites.data_version), or null when the site is not the
+ * organisation's: what a result kept in memory is keyed by, read without loading any figures.
+ */
+export async function siteDataVersion(db: Db | Tx, organisationId: string, siteId: string): Promise<number | null> {
+  if (!UUID.test(siteId)) return null;
+  const [row] = await siteDataVersionQuery(db).execute({ siteId, organisationId });
+  return row?.v ?? null;
+}
+
+const siteDataVersionQuery = preparedQuery((db) =>
+  db
+    .select({ v: sites.dataVersion })
+    .from(sites)
+    .where(and(eq(sites.id, sql.placeholder("siteId")), eq(sites.organisationId, sql.placeholder("organisationId"))))
+    .limit(1)
+    .prepare("site_data_version"),
+);
+
 export type SiteYearRows = NonNullable<Awaited<ReturnType<typeof loadSiteYearRows>>>;
 
 /** The organisation's active sites and the year the overview shows (the latest with months). */

@@ -2,6 +2,7 @@ import { and, desc, eq, isNull, ne, sql } from "drizzle-orm";
 import type { Db, Tx } from "../client";
 import { preparedQuery } from "../prepared";
 import { memberships, organisations, userSessions, users } from "../schema";
+import { UUID } from "./uuid";
 
 export type SessionEndReason = "signed-out" | "signed-out-everywhere" | "password-changed" | "disabled" | "roles-removed" | "ended-by-holder";
 
@@ -43,7 +44,6 @@ export async function openSessionsOf(db: Db | Tx, userId: string) {
     .orderBy(desc(userSessions.lastSeenAt));
 }
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /**
  * What the guard needs on every request, in one query: the membership in the active

@@ -2,8 +2,8 @@ import { and, asc, eq, gte, isNull, lte, sql } from "drizzle-orm";
 import type { Db, Tx } from "../client";
 import { preparedQuery } from "../prepared";
 import { months, sites } from "../schema";
+import { UUID } from "./uuid";
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /** Active sites of one organisation, by name. */
 export async function listSites(db: Db | Tx, organisationId: string) {

@@ -3,8 +3,8 @@ import { and, asc, desc, eq, lt } from "drizzle-orm";
 import type { Db, Tx } from "../client";
 import { gasAnalyses, months, sites, streams } from "../schema";
 import type { StreamValues } from "@/lib/validations/stream";
+import { UUID } from "./uuid";
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /** All streams of a site (archived ones too) in display order. The site must already be checked. */
 export async function listStreams(db: Db | Tx, siteId: string) {

@@ -1,4 +1,4 @@
-import { boolean, date, index, integer, jsonb, numeric, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { bigint, boolean, date, index, integer, jsonb, numeric, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import type { InstallationIdentity } from "@/lib/validations/installation";
 import { meteringReferenceEnum, streamKindEnum } from "./enums";
 import { organisations } from "./organisations";
@@ -23,6 +23,12 @@ export const sites = pgTable(
     installation: jsonb("installation").$type<InstallationIdentity>(),
     archivedAt: timestamp("archived_at", { withTimezone: true }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    /**
+     * Changes whenever anything a site's figures are made of changes: the site itself, its
+     * streams, months, readings, analyses or snapshots. Set by triggers (migration 0015), never by
+     * the app, so a result kept in memory under it cannot outlive its data on any instance.
+     */
+    dataVersion: bigint("data_version", { mode: "number" }).notNull().default(0),
   },
   (t) => [uniqueIndex("sites_org_code_key").on(t.organisationId, t.code)],
 );

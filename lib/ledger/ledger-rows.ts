@@ -10,7 +10,7 @@ import type { Role } from "@/lib/auth/roles";
 import { currentMonthKey, monthTiming } from "@/lib/period";
 import { STATE_LABELS, type MonthState } from "@/lib/lifecycle/transitions";
 import { mapLimited } from "@/lib/concurrency";
-import { loadSiteYear, seriesOf } from "./site-year";
+import { loadSiteSeries } from "./site-year";
 import type { SeriesMonth } from "./series";
 
 export interface LedgerRow {
@@ -65,16 +65,18 @@ export async function ledgerRows(db: Db, organisationId: string, now = new Date(
   const years = [...new Set(months.map((m) => m.slice(0, 4)))];
   const inWindow = new Set(months);
   const sites = await listSites(db, organisationId);
-  // Four sites at a time: their queries overlap while leaving pooled connections for other requests.
-  const loaded = await mapLimited(sites, 4, (site) => Promise.all(years.map((year) => loadSiteYear(db, organisationId, site.id, year, inWindow))));
+  // Four sites at a time: their queries overlap while leaving pooled connections for other
+  // requests. Kept in memory by the site's data version: an unchanged site costs one small query
+  // per year.
+  const loaded = await mapLimited(sites, 4, (site) => Promise.all(years.map((year) => loadSiteSeries(db, organisationId, site.id, year, now, inWindow))));
   const rows: LedgerRow[] = [];
   for (const [i, site] of sites.entries()) {
     const byMonth = new Map<string, SeriesMonth>();
     let tolerance = "2";
-    for (const y of loaded[i]) {
-      if (!y) continue;
-      tolerance = y.site.closureTolerancePct;
-      for (const m of seriesOf(y, now).months) byMonth.set(m.month, m);
+    for (const series of loaded[i]) {
+      if (!series) continue;
+      tolerance = series.tolerance_pct;
+      for (const m of series.months) byMonth.set(m.month, m);
     }
     // From the site's first month on (its first stored month, or the month it was set up): earlier
     // months were never the site's to fill, and listing them as "not started" would be noise.

@@ -7,7 +7,7 @@ import "server-only";
  */
 import { createHash } from "node:crypto";
 import type { Db, Tx } from "@/db/client";
-import { loadSiteYearRows, type SiteRow, type StreamRow } from "@/db/queries/overview";
+import { loadSiteYearRows, siteDataVersion, type SiteRow, type StreamRow } from "@/db/queries/overview";
 import { currentMonthKey } from "@/lib/period";
 import { cachedCalculation, calculationKey, documentInput, isFrozenState, runOfSnapshot, type FrozenFacts } from "./month-runs";
 import { buildSeries, type YearSeries } from "./series";
@@ -103,5 +103,36 @@ export function seriesOf(y: SiteYear, now = new Date()): YearSeries {
   });
   seriesCache.set(key, series);
   if (seriesCache.size > SERIES_MAX) seriesCache.delete(seriesCache.keys().next().value!);
+  return series;
+}
+
+/**
+ * Series answered by a site's data version (sites.data_version, bumped by the database with any
+ * change to the site's figures), the year and the current month, so an unchanged year costs one
+ * small query instead of loading and rolling up its months (`only` as for loadSiteYear: the
+ * ledger's window; such a series' totals are of those months only). Read the version first: a change
+ * that commits after it only makes this entry hold newer figures than its key, and every later
+ * read sees the new version and misses.
+ */
+const versionedSeries = new Map<string, YearSeries>();
+
+export async function loadSiteSeries(
+  db: Db | Tx,
+  organisationId: string,
+  siteId: string,
+  year: string,
+  now = new Date(),
+  only?: ReadonlySet<string>,
+): Promise<YearSeries | null> {
+  const version = await siteDataVersion(db, organisationId, siteId);
+  if (version === null) return null;
+  const key = `${siteId}|${year}|${version}|${currentMonthKey(now)}|${only ? [...only].sort().join(",") : "all"}`;
+  const hit = versionedSeries.get(key);
+  if (hit) return hit;
+  const y = await loadSiteYear(db, organisationId, siteId, year, only);
+  if (!y) return null;
+  const series = seriesOf(y, now);
+  versionedSeries.set(key, series);
+  if (versionedSeries.size > SERIES_MAX) versionedSeries.delete(versionedSeries.keys().next().value!);
   return series;
 }

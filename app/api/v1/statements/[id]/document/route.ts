@@ -4,8 +4,8 @@ import { notFound } from "@/lib/auth/errors";
 import { v1Route } from "@/lib/api/route";
 import { COMMUNICATION_FILE } from "@/lib/lifecycle/sign-cbam";
 import { readEmbeddedFiles } from "@/lib/signing/embed";
+import { UUID } from "@/db/queries/uuid";
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /**
  * GET /api/v1/statements/{id}/document: the machine-readable communication of embedded emissions

@@ -2,8 +2,8 @@ import { getDb } from "@/db";
 import { statementPdf } from "@/db/queries/statements";
 import { notFound } from "@/lib/auth/errors";
 import { apiRoute } from "@/lib/auth/guard";
+import { UUID } from "@/db/queries/uuid";
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /**
  * The stored bytes of a signed statement, exactly as signed, for any member of its organisation

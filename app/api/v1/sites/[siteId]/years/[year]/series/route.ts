@@ -1,5 +1,5 @@
 import { getDb } from "@/db";
-import { loadSiteYear, seriesOf } from "@/lib/ledger/site-year";
+import { loadSiteSeries } from "@/lib/ledger/site-year";
 import { notFound } from "@/lib/auth/errors";
 import { v1Route } from "@/lib/api/route";
 import { yearParam } from "@/lib/ledger/exports";
@@ -13,7 +13,7 @@ type Params = { siteId: string; year: string };
  * so a chart keeps its twelve slots. Nothing is written.
  */
 export const GET = v1Route<Params>({ permission: "org:read", what: "read yearly series" }, async (_req, caller, { siteId, year }) => {
-  const y = await loadSiteYear(getDb(), caller.organisationId, siteId, yearParam(year));
-  if (!y) throw notFound("The site");
-  return Response.json(seriesOf(y), { headers: { "Cache-Control": "private, no-store" } });
+  const series = await loadSiteSeries(getDb(), caller.organisationId, siteId, yearParam(year));
+  if (!series) throw notFound("The site");
+  return Response.json(series, { headers: { "Cache-Control": "private, no-store" } });
 });
