@@ -27,6 +27,23 @@ const config = [
       ],
     },
   },
+  {
+    // The engine is pure: a calculation of its own inputs, runnable from the CLI, a test or a
+    // worker. Nothing of the web framework, the UI or the database may reach it.
+    files: ["lib/balance/**", "lib/emissions/**"],
+    rules: {
+      "no-restricted-imports": [
+        "error",
+        {
+          patterns: [
+            { group: ["next", "next/*", "react", "react/*", "react-dom", "react-dom/*"], message: "The engine (lib/balance, lib/emissions) stays free of the web framework and React." },
+            { group: ["drizzle-orm", "drizzle-orm/*", "pg", "@/db", "@/db/*", "**/db/*"], message: "The engine (lib/balance, lib/emissions) never reads the database; its callers pass the figures in." },
+            { group: ["server-only", "@/components/*", "@/app/*", "@/lib/ledger/*", "@/lib/lifecycle/*", "@/lib/auth/*", "@/lib/api/*"], message: "The engine (lib/balance, lib/emissions) depends on nothing of the app around it." },
+          ],
+        },
+      ],
+    },
+  },
   { ignores: [".next/**", ".next-*/**", "node_modules/**", ".data/**", ".run/**", "test-results/**", "next-env.d.ts", "db/migrations/**"] },
 ];
 

@@ -1,5 +1,5 @@
 import "server-only";
-import { assertCan, errorResponse } from "@/lib/auth/guard";
+import { assertCan, errorResponse, type Actor } from "@/lib/auth/guard";
 import { HttpError, unauthorized } from "@/lib/auth/errors";
 import type { Permission } from "@/lib/auth/roles";
 import { assertSameOrigin } from "@/lib/auth/same-origin";
@@ -24,6 +24,15 @@ export const TOKEN_LIMIT_MESSAGE = "API tokens are limited to writing readings o
 export const tokenRefused = (detail: string) => new HttpError(403, "token_scope", `${TOKEN_LIMIT_MESSAGE}; ${detail}.`);
 
 type RouteContext<P> = { params: Promise<P> };
+
+/**
+ * The person calling a route whose rule admits no token: v1Route has already refused tokens
+ * there, so this only narrows the type (and refuses again, should a rule ever change).
+ */
+export function personOf(caller: ApiCaller): Actor {
+  if (caller.kind !== "session") throw tokenRefused("sign in as a person");
+  return caller.actor;
+}
 
 function checkToken(caller: Extract<ApiCaller, { kind: "token" }>, rule: RouteRule, params: Record<string, string | undefined>) {
   if (!rule.token) throw tokenRefused(`sign in as a person to ${rule.what}`);

@@ -7,7 +7,6 @@ import { getDb } from "@/db";
 import { liveMembership, touchSession } from "@/db/queries/sessions";
 import { HttpError, forbidden, unauthorized, zodIssues } from "./errors";
 import { isRole, rolesGrant, type Permission, type Role } from "./roles";
-import { assertSameOrigin } from "./same-origin";
 import { sessionClaims } from "./session-token";
 import { storageRefusal } from "./storage-refusal";
 
@@ -88,31 +87,8 @@ export function errorResponse(err: unknown): NextResponse {
 type RouteContext<P> = { params: Promise<P> };
 
 /**
- * Wraps a route handler: 401 without a session, 403 without the permission or for a cross-site
- * mutation (lib/auth/same-origin.ts), JSON errors with paths for bad input. The handler gets
- * the actor and must scope every query to its organisation.
- */
-export function apiRoute<P = Record<string, string>>(
-  permission: Permission,
-  what: string,
-  handler: (req: Request, actor: Actor, params: P) => Promise<Response>,
-) {
-  return async (req: Request, ctx: RouteContext<P>): Promise<Response> => {
-    try {
-      const actor = await currentActor();
-      assertCan(actor, permission, what);
-      // These handlers know only the session cookie, so a mutation must come from our own pages.
-      assertSameOrigin(req);
-      return await handler(req, actor, await ctx.params);
-    } catch (err) {
-      return errorResponse(err);
-    }
-  };
-}
-
-/**
  * Wraps a route handler anyone may call without a session (public statement verification, the
- * health check): the same JSON errors as apiRoute, no actor. The handler sees no organisation,
+ * health check): the same JSON errors as lib/api/route.ts's v1Route, no actor. The handler sees no organisation,
  * so it must answer from public facts only.
  */
 export function publicRoute<P = Record<string, string>>(handler: (req: Request, params: P) => Promise<Response>) {

@@ -6,7 +6,8 @@ import { actAs } from "../support/mock-auth";
 vi.mock("@/auth", () => import("../support/mock-auth"));
 process.env.DATABASE_URL ??= "";
 
-const { currentActor, apiRoute, guardedAction } = await import("@/lib/auth/guard");
+const { currentActor, guardedAction } = await import("@/lib/auth/guard");
+const { personOf, v1Route } = await import("@/lib/api/route");
 
 let a: FixtureOrg;
 let b: FixtureOrg;
@@ -33,8 +34,8 @@ describe("currentActor re-reads the membership from the database", () => {
   });
 });
 
-describe("apiRoute answers 401 and 403 as JSON", () => {
-  const route = apiRoute("org:manage-users", "manage users", async (_req, actor) => Response.json({ org: actor.organisationId }));
+describe("v1Route answers 401 and 403 as JSON", () => {
+  const route = v1Route({ permission: "org:manage-users", what: "manage users" }, async (_req, caller) => Response.json({ org: personOf(caller).organisationId }));
   const call = () => route(new Request("http://test/"), { params: Promise.resolve({}) });
 
   it("401 when signed out", async () => {

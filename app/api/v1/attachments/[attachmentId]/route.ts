@@ -1,7 +1,7 @@
 import { getDb } from "@/db";
 import { attachmentContent } from "@/db/queries/attachments";
 import { notFound } from "@/lib/auth/errors";
-import { apiRoute } from "@/lib/auth/guard";
+import { personOf, v1Route } from "@/lib/api/route";
 import { deleteAttachment } from "@/lib/attachments/service";
 
 type Params = { attachmentId: string };
@@ -16,7 +16,8 @@ function disposition(name: string): string {
  * GET → the file, always as a download with the type detected at upload. nosniff and a sandboxing
  * CSP keep a browser from ever running what it holds, whatever it contains.
  */
-export const GET = apiRoute<Params>("org:read", "download attachments", async (_req, actor, { attachmentId }) => {
+export const GET = v1Route<Params>({ permission: "org:read", what: "download attachments" }, async (_req, caller, { attachmentId }) => {
+  const actor = personOf(caller);
   const file = await attachmentContent(getDb(), actor.organisationId, attachmentId);
   if (!file) throw notFound("The attachment");
   return new Response(new Uint8Array(file.content), {
@@ -33,7 +34,8 @@ export const GET = apiRoute<Params>("org:read", "download attachments", async (_
 });
 
 /** DELETE → by the uploader or an administrator, while the month is not signed. */
-export const DELETE = apiRoute<Params>("org:read", "delete attachments", async (_req, actor, { attachmentId }) => {
+export const DELETE = v1Route<Params>({ permission: "org:read", what: "delete attachments" }, async (_req, caller, { attachmentId }) => {
+  const actor = personOf(caller);
   await deleteAttachment(getDb(), actor, attachmentId);
   return new Response(null, { status: 204 });
 });

@@ -2,10 +2,11 @@ import { getDb } from "@/db";
 import { listBatches, listMappings } from "@/db/queries/imports";
 import { findSite } from "@/db/queries/sites";
 import { notFound } from "@/lib/auth/errors";
-import { apiRoute } from "@/lib/auth/guard";
+import { personOf, v1Route } from "@/lib/api/route";
 
 /** GET → the site's recent import batches and its saved column mappings. */
-export const GET = apiRoute<{ siteId: string }>("org:read", "see imports", async (_req, actor, { siteId }) => {
+export const GET = v1Route<{ siteId: string }>({ permission: "org:read", what: "see imports" }, async (_req, caller, { siteId }) => {
+  const actor = personOf(caller);
   const db = getDb();
   const site = await findSite(db, actor.organisationId, siteId);
   if (!site) throw notFound("The site");

@@ -1,7 +1,7 @@
 import { getDb } from "@/db";
 import { findSite } from "@/db/queries/sites";
 import { notFound } from "@/lib/auth/errors";
-import { apiRoute } from "@/lib/auth/guard";
+import { personOf, v1Route } from "@/lib/api/route";
 import { readImportRequest } from "@/lib/import/analyse";
 import { commitImport } from "@/lib/import/commit";
 import { progressResponse } from "@/lib/import/progress-response";
@@ -11,7 +11,8 @@ import { progressResponse } from "@/lib/import/progress-response";
  * in one transaction, or refused whole: 400 with every bad row, 409 `already_imported` (with the
  * date of the first import) or 409 `month_read_only` (naming the months).
  */
-export const POST = apiRoute<{ siteId: string }>("month:enter", "import monthly figures", async (req, actor, { siteId }) => {
+export const POST = v1Route<{ siteId: string }>({ permission: "month:enter", what: "import monthly figures" }, async (req, caller, { siteId }) => {
+  const actor = personOf(caller);
   const db = getDb();
   if (!(await findSite(db, actor.organisationId, siteId))) throw notFound("The site");
   const request = await readImportRequest(req);

@@ -1,7 +1,7 @@
 import { getDb } from "@/db";
 import { findSite } from "@/db/queries/sites";
 import { notFound } from "@/lib/auth/errors";
-import { apiRoute } from "@/lib/auth/guard";
+import { personOf, v1Route } from "@/lib/api/route";
 import { analyseImport, readImportRequest } from "@/lib/import/analyse";
 import { previewBody } from "@/lib/import/commit";
 import { progressResponse } from "@/lib/import/progress-response";
@@ -11,7 +11,8 @@ import { progressResponse } from "@/lib/import/progress-response";
  * the file would write beside the current ones, and whether this file was imported before.
  * Writes nothing. Send `Accept: application/x-ndjson` for progress lines.
  */
-export const POST = apiRoute<{ siteId: string }>("month:enter", "import monthly figures", async (req, actor, { siteId }) => {
+export const POST = v1Route<{ siteId: string }>({ permission: "month:enter", what: "import monthly figures" }, async (req, caller, { siteId }) => {
+  const actor = personOf(caller);
   const db = getDb();
   // The site is checked before the upload is read, so another organisation's id costs nothing.
   if (!(await findSite(db, actor.organisationId, siteId))) throw notFound("The site");

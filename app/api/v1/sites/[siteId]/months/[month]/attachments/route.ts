@@ -1,7 +1,7 @@
 import { getDb } from "@/db";
 import { findSite } from "@/db/queries/sites";
 import { forbidden, notFound } from "@/lib/auth/errors";
-import { apiRoute } from "@/lib/auth/guard";
+import { personOf, v1Route } from "@/lib/api/route";
 import { MAX_ATTACHMENT_BYTES } from "@/lib/attachments/categories";
 import { canUploadAttachments, listForMonth, uploadAttachment } from "@/lib/attachments/service";
 import { formFile, readLimitedForm } from "@/lib/import/read-multipart";
@@ -10,13 +10,15 @@ import { PERIOD } from "@/lib/validations/month";
 type Params = { siteId: string; month: string };
 
 /** GET → the month's attachments (metadata, with a download link and whether you may delete each). */
-export const GET = apiRoute<Params>("org:read", "see attachments", async (_req, actor, { siteId, month }) => {
+export const GET = v1Route<Params>({ permission: "org:read", what: "see attachments" }, async (_req, caller, { siteId, month }) => {
+  const actor = personOf(caller);
   if (!PERIOD.test(month)) throw notFound("The month");
   return Response.json({ attachments: await listForMonth(getDb(), actor, siteId, month) });
 });
 
 /** POST multipart: `file`, `category` (lab-certificate, calibration-certificate, invoice, other), optional `stream` key. */
-export const POST = apiRoute<Params>("org:read", "attach files", async (req, actor, { siteId, month }) => {
+export const POST = v1Route<Params>({ permission: "org:read", what: "attach files" }, async (req, caller, { siteId, month }) => {
+  const actor = personOf(caller);
   if (!canUploadAttachments(actor)) throw forbidden("attach files to a month");
   if (!PERIOD.test(month)) throw notFound("The month");
   // The site is checked before the body is read, so another organisation's id costs nothing.
