@@ -22,3 +22,18 @@ export function preparedQuery<Q>(build: (db: Db | Tx) => Q): (db: Db | Tx) => Q 
     return q;
   };
 }
+
+/**
+ * Runs independent reads together on the pool (each on a connection of its own), or one after
+ * another inside a transaction, whose single connection takes one query at a time (node-postgres
+ * queues overlapping queries on a client, deprecated and gone in pg 9).
+ */
+export async function readAll<T extends readonly unknown[]>(db: Db | Tx, reads: { [K in keyof T]: () => Promise<T[K]> }): Promise<T> {
+  if (isPool(db)) return Promise.all(reads.map((r) => r())) as unknown as Promise<T>;
+  const out: unknown[] = [];
+  for (const r of reads) out.push(await r());
+  return out as unknown as T;
+}
+
+// drizzle sets $client (the pool) on the database it makes, not on its transactions.
+const isPool = (db: Db | Tx): db is Db => "$client" in db;

@@ -1,6 +1,6 @@
 import { and, asc, eq, getTableColumns, sql } from "drizzle-orm";
 import type { Db, Tx } from "../client";
-import { preparedQuery } from "../prepared";
+import { preparedQuery, readAll } from "../prepared";
 import { gasAnalyses, months, readings, streams } from "../schema";
 import { findSite } from "./sites";
 
@@ -10,12 +10,12 @@ export async function loadMonthBundle(db: Db | Tx, organisationId: string, siteI
   if (!site) return null;
   const args = { siteId: site.id, period };
   // One round of prepared queries once the site is known to be the organisation's.
-  const [[month], siteStreams, monthReadings, monthAnalyses] = await Promise.all([
-    bundleMonth(db).execute(args),
-    siteStreamsQuery(db).execute({ siteId: site.id }),
-    bundleReadings(db).execute(args),
-    bundleAnalyses(db).execute(args),
-  ]);
+  const [[month], siteStreams, monthReadings, monthAnalyses] = await readAll(db, [
+    () => bundleMonth(db).execute(args),
+    () => siteStreamsQuery(db).execute({ siteId: site.id }),
+    () => bundleReadings(db).execute(args),
+    () => bundleAnalyses(db).execute(args),
+  ] as const);
   return { site, month: month ?? null, streams: siteStreams, readings: monthReadings, analyses: monthAnalyses };
 }
 

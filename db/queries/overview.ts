@@ -1,6 +1,6 @@
 import { and, asc, desc, eq, getTableColumns, inArray, isNull, like, max, sql } from "drizzle-orm";
 import type { Db, Tx } from "../client";
-import { preparedQuery } from "../prepared";
+import { preparedQuery, readAll } from "../prepared";
 import { FROZEN_MONTH_STATES, gasAnalyses, months, monthSnapshots, readings, sites, statements, streams, type MonthSnapshotRow } from "../schema";
 import { siteStreamsQuery } from "./months";
 import { findSite, listSites } from "./sites";
@@ -41,13 +41,13 @@ export async function loadSiteYearRows(db: Db | Tx, organisationId: string, site
   const site = await findSite(db, organisationId, siteId);
   if (!site) return null;
   const args = { siteId: site.id, pattern: `${year}-%` };
-  const [siteStreams, monthRows, allReadings, allAnalyses, snapshotRows] = await Promise.all([
-    siteStreamsQuery(db).execute({ siteId: site.id }),
-    yearMonths(db).execute(args),
-    yearReadings(db).execute(args),
-    yearAnalyses(db).execute(args),
-    yearSnapshots(db).execute(args),
-  ]);
+  const [siteStreams, monthRows, allReadings, allAnalyses, snapshotRows] = await readAll(db, [
+    () => siteStreamsQuery(db).execute({ siteId: site.id }),
+    () => yearMonths(db).execute(args),
+    () => yearReadings(db).execute(args),
+    () => yearAnalyses(db).execute(args),
+    () => yearSnapshots(db).execute(args),
+  ] as const);
   // Newest first: the first row of a month is its latest snapshot of the current revision.
   const snapshots = new Map<string, MonthSnapshotRow>();
   for (const r of snapshotRows) if (!snapshots.has(r.monthId)) snapshots.set(r.monthId, r);
@@ -100,7 +100,7 @@ export type SiteYearRows = NonNullable<Awaited<ReturnType<typeof loadSiteYearRow
 
 /** The organisation's active sites and the year the overview shows (the latest with months). */
 export async function overviewScope(db: Db | Tx, organisationId: string) {
-  const [siteList, year] = await Promise.all([listSites(db, organisationId), latestYearOfOrganisation(db, organisationId)]);
+  const [siteList, year] = await readAll(db, [() => listSites(db, organisationId), () => latestYearOfOrganisation(db, organisationId)] as const);
   return { sites: siteList, year };
 }
 
