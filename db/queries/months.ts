@@ -1,4 +1,4 @@
-import { and, asc, eq, getTableColumns, sql } from "drizzle-orm";
+import { and, asc, eq, getTableColumns, sql, type SQL } from "drizzle-orm";
 import type { Db, Tx } from "../client";
 import { preparedQuery, readAll } from "../prepared";
 import { gasAnalyses, months, readings, streams } from "../schema";
@@ -21,22 +21,22 @@ export async function loadMonthBundle(db: Db | Tx, organisationId: string, siteI
 
 const ofSiteMonth = and(eq(months.siteId, sql.placeholder("siteId")), eq(months.period, sql.placeholder("period")));
 const bundleMonth = preparedQuery((db) => db.select().from(months).where(ofSiteMonth).limit(1).prepare("bundle_month"));
+
 /** Every stream of a site, archived ones included (old months use them), in the site's order. */
 export const siteStreamsQuery = preparedQuery((db) =>
   db.select().from(streams).where(eq(streams.siteId, sql.placeholder("siteId"))).orderBy(asc(streams.sortOrder), asc(streams.key)).prepare("site_streams"),
 );
-const bundleReadings = preparedQuery((db) =>
-  db.select(getTableColumns(readings)).from(readings).innerJoin(months, eq(months.id, readings.monthId)).where(ofSiteMonth).prepare("bundle_readings"),
-);
-const bundleAnalyses = preparedQuery((db) =>
-  db
-    .select(getTableColumns(gasAnalyses))
-    .from(gasAnalyses)
-    .innerJoin(months, eq(months.id, gasAnalyses.monthId))
-    .where(ofSiteMonth)
-    .orderBy(asc(gasAnalyses.key))
-    .prepare("bundle_analyses"),
-);
+const bundleReadings = preparedQuery((db) => readingsOfMonths(db, ofSiteMonth).prepare("bundle_readings"));
+const bundleAnalyses = preparedQuery((db) => analysesOfMonths(db, ofSiteMonth).prepare("bundle_analyses"));
+
+/** The readings of the months a condition on `months` picks, in one query joined to them. */
+export const readingsOfMonths = (db: Db | Tx, where: SQL | undefined) =>
+  db.select(getTableColumns(readings)).from(readings).innerJoin(months, eq(months.id, readings.monthId)).where(where);
+
+/** The gas analyses of the months a condition on `months` picks, by key. */
+export const analysesOfMonths = (db: Db | Tx, where: SQL | undefined) =>
+  db.select(getTableColumns(gasAnalyses)).from(gasAnalyses).innerJoin(months, eq(months.id, gasAnalyses.monthId)).where(where).orderBy(asc(gasAnalyses.key));
+
 export type MonthBundle = NonNullable<Awaited<ReturnType<typeof loadMonthBundle>>>;
 
 /** Locks the month row for the rest of the transaction (creating it when new). */

@@ -1,8 +1,8 @@
 import { and, asc, desc, eq, getTableColumns, inArray, isNull, like, max, sql } from "drizzle-orm";
 import type { Db, Tx } from "../client";
 import { preparedQuery, readAll } from "../prepared";
-import { FROZEN_MONTH_STATES, gasAnalyses, months, monthSnapshots, readings, sites, statements, streams, type MonthSnapshotRow } from "../schema";
-import { siteStreamsQuery } from "./months";
+import { FROZEN_MONTH_STATES, months, monthSnapshots, sites, statements, streams, type MonthSnapshotRow } from "../schema";
+import { analysesOfMonths, readingsOfMonths, siteStreamsQuery } from "./months";
 import { findSite, listSites } from "./sites";
 import { UUID } from "./uuid";
 
@@ -56,18 +56,8 @@ export async function loadSiteYearRows(db: Db | Tx, organisationId: string, site
 
 const ofSiteYear = and(eq(months.siteId, sql.placeholder("siteId")), like(months.period, sql.placeholder("pattern")));
 const yearMonths = preparedQuery((db) => db.select().from(months).where(ofSiteYear).orderBy(asc(months.period)).prepare("year_months"));
-const yearReadings = preparedQuery((db) =>
-  db.select(getTableColumns(readings)).from(readings).innerJoin(months, eq(months.id, readings.monthId)).where(ofSiteYear).prepare("year_readings"),
-);
-const yearAnalyses = preparedQuery((db) =>
-  db
-    .select(getTableColumns(gasAnalyses))
-    .from(gasAnalyses)
-    .innerJoin(months, eq(months.id, gasAnalyses.monthId))
-    .where(ofSiteYear)
-    .orderBy(asc(gasAnalyses.key))
-    .prepare("year_analyses"),
-);
+const yearReadings = preparedQuery((db) => readingsOfMonths(db, ofSiteYear).prepare("year_readings"));
+const yearAnalyses = preparedQuery((db) => analysesOfMonths(db, ofSiteYear).prepare("year_analyses"));
 const yearSnapshots = preparedQuery((db) =>
   db
     .select(getTableColumns(monthSnapshots))
