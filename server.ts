@@ -10,21 +10,23 @@ import { createServer } from "node:http";
 import next from "next";
 import { applyForwarding, parseTrustedProxies, TrustedProxyError } from "./lib/net/forwarded";
 import { MALFORMED_PATH_BODY, wellFormedPath } from "./lib/net/request-target";
+import { EnvError, requireServerEnv } from "./lib/env";
 
-const port = Number(process.env.PORT ?? 3000);
-const hostname = process.env.HOST ?? "0.0.0.0";
-
+let settings;
 let trusted;
 try {
-  trusted = parseTrustedProxies(process.env.TRUSTED_PROXY);
+  // Every setting checked before anything starts: a bad one stops here, named.
+  settings = requireServerEnv();
+  trusted = parseTrustedProxies(settings.TRUSTED_PROXY);
 } catch (err) {
-  if (err instanceof TrustedProxyError) {
+  if (err instanceof TrustedProxyError || err instanceof EnvError) {
     console.error(err.message);
     process.exit(2);
   }
   throw err;
 }
 
+const { PORT: port, HOST: hostname } = settings;
 const app = next({ dev: false, hostname, port, dir: import.meta.dirname });
 await app.prepare();
 const handle = app.getRequestHandler();

@@ -1,6 +1,7 @@
 import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
 import { Pool } from "pg";
 import * as schema from "./schema";
+import { env } from "../lib/env";
 
 export type Db = NodePgDatabase<typeof schema> & { $client: Pool };
 /** A transaction handle, usable wherever a `Db` is. */
@@ -12,7 +13,7 @@ export type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
  * name the host) unless it states an sslmode of its own. A URL may also carry sslmode and
  * sslrootcert itself, as libpq's do.
  */
-export function withTls(url: string, caFile = process.env.DATABASE_CA_FILE): string {
+export function withTls(url: string, caFile = env().DATABASE_CA_FILE): string {
   if (!caFile) return url;
   const u = new URL(url);
   if (!u.searchParams.has("sslmode")) u.searchParams.set("sslmode", "verify-full");
@@ -20,19 +21,17 @@ export function withTls(url: string, caFile = process.env.DATABASE_CA_FILE): str
   return u.toString();
 }
 
-/** Server-side limits per connection, ms: a runaway statement or a transaction left open ends instead of holding locks. */
-const STATEMENT_TIMEOUT_MS = Number(process.env.DB_STATEMENT_TIMEOUT_MS ?? 120_000);
-const IDLE_IN_TRANSACTION_MS = Number(process.env.DB_IDLE_IN_TRANSACTION_MS ?? 300_000);
 
 /** One pool per process (DB_POOL_MAX connections, default 10). Scripts and tests call this; the app uses the singleton in db/index.ts. */
-export function createDb(url: string, max = Number(process.env.DB_POOL_MAX ?? 10)): Db {
+export function createDb(url: string, max = env().DB_POOL_MAX): Db {
   if (!url) throw new Error("DATABASE_URL is not set: npm start sets it, or point it at your PostgreSQL");
   const pool = new Pool({
     connectionString: withTls(url),
     max,
     idleTimeoutMillis: 30_000,
-    statement_timeout: STATEMENT_TIMEOUT_MS,
-    idle_in_transaction_session_timeout: IDLE_IN_TRANSACTION_MS,
+    // Server-side limits per connection, ms: a runaway statement or a transaction left open ends instead of holding locks.
+    statement_timeout: env().DB_STATEMENT_TIMEOUT_MS,
+    idle_in_transaction_session_timeout: env().DB_IDLE_IN_TRANSACTION_MS,
   });
   // A dropped connection (server restart) must not crash the process; the pool reconnects.
   pool.on("error", (err) => console.error("[db] idle client error:", err.message));

@@ -3,6 +3,7 @@ import { fileURLToPath } from "node:url";
 import { sql } from "drizzle-orm";
 import { migrate } from "drizzle-orm/node-postgres/migrator";
 import { createDb } from "./client";
+import { env } from "../lib/env";
 
 export async function runMigrations(url: string): Promise<void> {
   const db = createDb(url, 1);
@@ -25,7 +26,7 @@ export async function runMigrations(url: string): Promise<void> {
 }
 
 if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
-  const url = process.env.MIGRATION_DATABASE_URL ?? process.env.DATABASE_URL ?? "";
+  const url = env().MIGRATION_DATABASE_URL ?? env().DATABASE_URL ?? "";
   runMigrations(url)
     .then(() => console.error("[synledger] migrations applied"))
     .catch((err) => {

@@ -6,13 +6,14 @@
 import { fileURLToPath } from "node:url";
 import { createDb, type Db } from "./client";
 import { seedDemo } from "./seed-demo";
+import { env } from "../lib/env";
 
 export async function runSeed(db: Db): Promise<void> {
   await seedDemo(db);
 }
 
 if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
-  const db = createDb(process.env.DATABASE_URL ?? "", 2);
+  const db = createDb(env().DATABASE_URL ?? "", 2);
   runSeed(db)
     .then(() => console.error("[synledger] demo organisation seeded"))
     .catch((err) => {

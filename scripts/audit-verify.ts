@@ -4,10 +4,11 @@
  * broken chain. Exit 0 when every chain is whole, 1 when a link is broken, 2 when it cannot run.
  */
 import { createDb } from "../db/client";
+import { env } from "../lib/env";
 import { verifyAuditChains } from "../db/queries/audit";
 
 async function main(): Promise<number> {
-  const url = process.env.DATABASE_URL;
+  const url = env().DATABASE_URL;
   if (!url) {
     console.error("audit:verify: set DATABASE_URL (npm start prints it; the app's own role can read the trail)");
     return 2;

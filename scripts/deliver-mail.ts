@@ -6,10 +6,11 @@
  * (DATABASE_URL and SMTP_URL as for the app.)
  */
 import { createDb } from "@/db/client";
+import { env } from "@/lib/env";
 import { deliverPending } from "@/lib/mail/outbox";
 import { mailTransport } from "@/lib/mail/transport";
 
-const db = createDb(process.env.DATABASE_URL ?? "", 2);
+const db = createDb(env().DATABASE_URL ?? "", 2);
 try {
   let total = { sent: 0, retried: 0, failed: 0 };
   // Batches until nothing due is left, so a backlog clears in one run.
@@ -24,5 +25,5 @@ try {
   process.exitCode = 1;
 } finally {
   await db.$client.end();
-  if (process.env.SMTP_URL) mailTransport().close();
+  if (env().SMTP_URL) mailTransport().close();
 }

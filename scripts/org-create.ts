@@ -4,6 +4,7 @@
  * Uses DATABASE_URL and APP_URL (the address the link opens). Bad input: exit 2, the field named.
  */
 import { createDb } from "../db/client";
+import { appUrl, env } from "../lib/env";
 import { createOrganisation } from "../lib/onboarding/create-organisation";
 
 function arg(name: string): string | undefined {
@@ -12,7 +13,7 @@ function arg(name: string): string | undefined {
 }
 
 async function main(): Promise<number> {
-  const url = process.env.DATABASE_URL;
+  const url = env().DATABASE_URL;
   if (!url) {
     console.error("org:create: set DATABASE_URL (and APP_URL, the address the invitation link opens)");
     return 2;
@@ -25,7 +26,7 @@ async function main(): Promise<number> {
   }
   const db = createDb(url, 1);
   try {
-    const r = await createOrganisation(db, { name, adminEmail }, process.env.APP_URL ?? "http://localhost:3000");
+    const r = await createOrganisation(db, { name, adminEmail }, appUrl());
     console.log(`organisation: ${r.organisation.name} (${r.organisation.slug}, ${r.organisation.id})`);
     console.log(`invitation for ${adminEmail.toLowerCase()} as administrator, valid until ${r.expiresAt.toISOString()}; it works once:`);
     console.log(r.link);

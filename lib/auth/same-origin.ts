@@ -1,4 +1,5 @@
 import { HttpError } from "./errors";
+import { env } from "@/lib/env";
 
 /**
  * Cross-site request forgery guard for route handlers that a session cookie authenticates.
@@ -43,8 +44,8 @@ function ownHosts(req: Request): Set<string> {
   add(req.headers.get("x-forwarded-host"));
   add(req.headers.get("host"));
   add(hostOf(req.url));
-  add(hostOf(process.env.APP_URL));
-  add(hostOf(process.env.AUTH_URL));
+  add(hostOf(env().APP_URL));
+  add(hostOf(env().AUTH_URL));
   return hosts;
 }
 

@@ -1,6 +1,7 @@
 import "server-only";
 import { headers } from "next/headers";
 import { decode, getToken, type JWT } from "next-auth/jwt";
+import { env } from "@/lib/env";
 
 /** The claims our jwt callback (auth.config.ts) writes into the session cookie. */
 export interface SessionClaims {
@@ -52,7 +53,7 @@ export async function sessionClaims(): Promise<SessionClaims | null> {
   // page depends on who asks. Returning before it (no secret at build time) would let the build
   // render a signed-in page once, as a redirect to sign-in, and serve that to everyone.
   const cookie = (await headers()).get("cookie");
-  const secret = process.env.AUTH_SECRET;
+  const secret = env().AUTH_SECRET;
   if (!cookie || !secret) return null;
   const req = { headers: new Headers({ cookie }) };
   for (const cookieName of COOKIE_NAMES) {

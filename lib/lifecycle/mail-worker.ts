@@ -2,8 +2,8 @@ import "server-only";
 import { getDb } from "@/db";
 import { deliverPending } from "@/lib/mail/outbox";
 import { mailTransport } from "@/lib/mail/transport";
+import { env } from "@/lib/env";
 
-const INTERVAL_MS = Number(process.env.MAIL_WORKER_INTERVAL_MS ?? 15_000);
 const g = globalThis as unknown as { __synledgerMailWorker?: NodeJS.Timeout };
 
 /**
@@ -32,6 +32,6 @@ export function startMailWorker(): void {
       running = false;
     }
   };
-  g.__synledgerMailWorker = setInterval(tick, INTERVAL_MS);
+  g.__synledgerMailWorker = setInterval(tick, env().MAIL_WORKER_INTERVAL_MS);
   g.__synledgerMailWorker.unref?.();
 }

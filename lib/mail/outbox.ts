@@ -2,6 +2,7 @@ import "server-only";
 import type { Db, Tx } from "@/db/client";
 import { claimDueMail, insertMail, markMailFailed, markMailRetry, markMailSent, type OutboxMessage } from "@/db/queries/outbox";
 import { mailTransport } from "./transport";
+import { env } from "@/lib/env";
 
 /** What the worker needs of a nodemailer transport; tests pass a fake. */
 export interface MailSender {
@@ -36,7 +37,7 @@ export async function deliverPending(
   opts: DeliveryOptions = {},
 ): Promise<{ sent: number; retried: number; failed: number }> {
   const maxAttempts = opts.maxAttempts ?? 8;
-  const from = opts.from ?? (process.env.MAIL_FROM || "Synledger <no-reply@synledger.invalid>");
+  const from = opts.from ?? env().MAIL_FROM;
   const due = await claimDueMail(db, opts.limit ?? 20, opts.leaseSeconds ?? 300);
   const counts = { sent: 0, retried: 0, failed: 0 };
   for (const m of due) {

@@ -1,5 +1,6 @@
 import "server-only";
 import nodemailer, { type Transporter } from "nodemailer";
+import { env } from "@/lib/env";
 
 const g = globalThis as unknown as { __synledgerMail?: Transporter };
 
@@ -12,7 +13,7 @@ export class MailNotSent extends Error {}
  */
 export function mailTransport(): Transporter {
   if (!g.__synledgerMail) {
-    const url = process.env.SMTP_URL;
+    const url = env().SMTP_URL;
     if (!url) throw new MailNotSent("SMTP_URL is not set, so no e-mail can be sent.");
     g.__synledgerMail = nodemailer.createTransport(url, {
       connectionTimeout: 8_000,
@@ -31,7 +32,7 @@ export interface OutgoingMail {
 }
 
 export async function sendMail(mail: OutgoingMail): Promise<void> {
-  const from = process.env.MAIL_FROM || "Synledger <no-reply@synledger.invalid>";
+  const from = env().MAIL_FROM;
   try {
     await mailTransport().sendMail({ from, ...mail });
   } catch (err) {
@@ -42,6 +43,4 @@ export async function sendMail(mail: OutgoingMail): Promise<void> {
 }
 
 /** Base URL for links in e-mails; APP_URL is set by scripts/start.sh. */
-export function appUrl(): string {
-  return (process.env.APP_URL || process.env.AUTH_URL || "http://localhost:3000").replace(/\/+$/, "");
-}
+export { appUrl } from "@/lib/env";

@@ -1,4 +1,5 @@
 import { createCipheriv, createDecipheriv, hkdfSync, randomBytes } from "node:crypto";
+import { env } from "@/lib/env";
 
 /**
  * (No "server-only" marker here so the demo seed, a plain tsx script, can seal too; app code
@@ -13,7 +14,7 @@ import { createCipheriv, createDecipheriv, hkdfSync, randomBytes } from "node:cr
 const VERSION = "v1";
 
 function key(secret?: string): Buffer {
-  const s = secret ?? process.env.SIGNING_SECRET ?? process.env.AUTH_SECRET ?? "";
+  const s = secret ?? env().SIGNING_SECRET ?? env().AUTH_SECRET ?? "";
   if (s.length < 32) throw new Error("SIGNING_SECRET or AUTH_SECRET (at least 32 characters) is needed to seal passphrases");
   return Buffer.from(hkdfSync("sha256", s, "synledger", "signing-certificate-passphrase", 32));
 }

@@ -10,6 +10,7 @@ import { requirePageActor } from "@/lib/auth/guard";
 import { CreateTokenForm } from "./_components/create-token-form";
 import { RevokeTokenForm } from "./_components/revoke-token-form";
 import { SettingsTabs } from "../settings-tabs";
+import { appUrl } from "@/lib/env";
 
 export const metadata: Metadata = { title: "API tokens" };
 
@@ -17,7 +18,7 @@ export default async function ApiTokensPage() {
   const actor = await requirePageActor("site:manage");
   const db = getDb();
   const [tokens, sites] = await Promise.all([listApiTokens(db, actor.organisationId), listSites(db, actor.organisationId)]);
-  const appUrl = (process.env.APP_URL ?? "http://localhost:3000").replace(/\/+$/, "");
+  const base = appUrl();
 
   return (
     <div className="space-y-8">
@@ -41,7 +42,7 @@ export default async function ApiTokensPage() {
         {sites.length === 0 ? (
           <p className="text-sm">Set up a site first (Sites and meters); tokens are made per site.</p>
         ) : (
-          <CreateTokenForm sites={sites.map((s) => ({ id: s.id, name: s.name }))} appUrl={appUrl} />
+          <CreateTokenForm sites={sites.map((s) => ({ id: s.id, name: s.name }))} appUrl={base} />
         )}
       </section>
 
