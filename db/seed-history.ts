@@ -1,6 +1,7 @@
 import { and, eq } from "drizzle-orm";
 import { runOfSnapshot } from "@/lib/ledger/month-runs";
-import { transitionMonth, type LifecycleActor } from "@/lib/lifecycle/service";
+import type { LifecycleActor } from "@/lib/lifecycle/actor";
+import { transitionMonth } from "@/lib/lifecycle/service";
 import { unconfirmedKeys } from "@/lib/lifecycle/sign";
 import type { TransitionName } from "@/lib/lifecycle/transitions";
 import type { Db } from "./client";

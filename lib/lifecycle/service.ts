@@ -1,11 +1,10 @@
 import "server-only";
 import { and, eq } from "drizzle-orm";
 import type { Db } from "@/db/client";
-import { recordAudit, type Channel } from "@/db/queries/audit";
+import { recordAudit } from "@/db/queries/audit";
 import { findSite } from "@/db/queries/sites";
 import { months } from "@/db/schema";
 import { HttpError, forbidden, notFound, type IssueDetail } from "@/lib/auth/errors";
-import type { Role } from "@/lib/auth/roles";
 import { monthLabel, signed } from "@/reports/format";
 import { monthEvents } from "./history";
 import { flagNotesOf } from "@/db/queries/flag-notes";
@@ -15,18 +14,10 @@ import { missingInstallationFields } from "@/lib/validations/installation";
 import { dayLabel as dayText, monthTiming } from "@/lib/period";
 import { actAsLifecycle } from "./db-flag";
 import { queueTransitionNotice } from "./notify";
+import type { LifecycleActor } from "./actor";
 import { signMonth } from "./sign";
 import { MIN_REASON_CHARS, RULES, STATE_LABELS, mayPerform, reasonIsLongEnough, rolesText, type MonthState, type TransitionName } from "./transitions";
 
-export interface LifecycleActor {
-  organisationId: string;
-  organisationName: string;
-  userId: string;
-  name: string;
-  email: string;
-  roles: Role[];
-  channel?: Channel;
-}
 
 export interface TransitionInput {
   siteId: string;

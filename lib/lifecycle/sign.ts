@@ -15,7 +15,7 @@ import type { EvidenceFacts } from "@/reports/model";
 import { utcStamp } from "@/reports/format";
 import { renderMonthlyStatement } from "@/reports/render";
 import { balanceNoteOf, lastOf, reopenReason, revisionFacts, type TransitionEvent } from "./history";
-import type { LifecycleActor } from "./service";
+import type { LifecycleActor } from "./actor";
 
 type Site = NonNullable<Awaited<ReturnType<typeof findSite>>>;
 
