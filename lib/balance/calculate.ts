@@ -2,14 +2,15 @@
 import { type BalanceOptions, type ElementBalances, balanceFlags, elementBalances } from "./balances";
 import { Dec, dec } from "./decimal";
 import { CalculationInputError } from "./errors";
-import { type FeedFigures, feedFigures } from "./feed";
+import { feedFigures } from "./feed";
 import { type GasProperties, calorificValues } from "./gas-properties";
 import { type PlantReconciliation, reconcilePlant } from "./reconcile-plant";
-import { type EmissionsPart, buildEmissionsInput, emissionsPart } from "./result";
+import { buildEmissionsInput, emissionsPart } from "./result";
+import type { AnalysisResult, CalculationResult } from "./calculation-result";
 import type { FactorSetRegistry } from "../emissions/registry";
 import { isUnmetered, type PlantMonth } from "./schema";
 import { type StreamFlow, analysesOf, streamFlow } from "./streams";
-import type { AnalysisFigures, Flag, StreamFigures } from "./types";
+import type { Flag } from "./types";
 import { UnitError } from "./units";
 
 export interface CalculateOptions extends BalanceOptions {
@@ -21,28 +22,8 @@ export interface CalculateOptions extends BalanceOptions {
   factorSets?: FactorSetRegistry;
 }
 
-export interface AnalysisResult extends AnalysisFigures {
-  id: string;
-  gas: GasProperties;
-  z_15c: Dec;
-  gcv_mj_per_m3_15c: Dec; // real gas, 15 °C / 15 °C
-  ncv_mj_per_m3_15c: Dec;
-}
 
-export interface CalculationResult {
-  site: string;
-  month: string;
-  streams: StreamFigures[];
-  flows: StreamFlow[];
-  analyses: Record<string, AnalysisResult>;
-  balances: ElementBalances;
-  feed: FeedFigures;
-  reconciliation: PlantReconciliation | null;
-  emissions: EmissionsPart;
-  flags: Flag[];
-  /** The closure tolerance the flags were judged against, % (the site's). */
-  tolerancePct: Dec;
-}
+export type { AnalysisResult, CalculationResult } from "./calculation-result";
 
 export { CalculationInputError } from "./errors";
 

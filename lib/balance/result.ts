@@ -4,26 +4,18 @@
 import { EmissionsInputError, computeEmissions } from "../emissions/compute";
 import { type FactorSetRegistry, defaultRegistry } from "../emissions/registry";
 import type { EmissionsResult } from "../emissions/result";
-import type { CalculationResult } from "./calculate";
+import type { CalculationResult, EmissionsPart } from "./calculation-result";
 import { Dec, dec, num } from "./decimal";
 import { CUBIC_FOOT_M3, PSI_PA, R, REFERENCES, compressibility, type GasProperties } from "./gas-properties";
 import { CalculationInputError } from "./errors";
 import { emissionsDocumentPart } from "./result-emissions";
 import type { PlantMonth } from "./schema";
-import type { AnalysisFigures, EmissionsInput, Flag } from "./types";
+import type { AnalysisFigures, EmissionsInput } from "./types";
 import { ENGINE_VERSION } from "./version";
 
 export const RESULT_FORMAT = "synledger.result/1";
 
-export interface EmissionsPart {
-  emissions: { co2_t: Dec; ch4_t: Dec; n2o_t: Dec; co2e_t: Dec; transferred_co2_t: Dec; net_co2e_t: Dec };
-  intensity: { co2e_t_per_t_nh3: Dec | null };
-  flags: Flag[];
-  /** Everything lib/emissions computed for the month (by stream, by gas, transfers, uncertainty, …). */
-  detail: EmissionsResult;
-  /** The input it was computed from: the annual roll-up needs both. */
-  input: EmissionsInput;
-}
+export type { EmissionsPart } from "./calculation-result";
 
 /**
  * THE integration point with lib/emissions. The factor set is checked here rather than in the
