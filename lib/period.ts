@@ -97,3 +97,15 @@ export function monthsBetween(from: string, to: string): string[] {
   }
   return out;
 }
+
+/** The calendar month before the current one: the one plants usually close. */
+export const previousMonthKey = (now = new Date()): string => previousMonth(currentMonthKey(now));
+
+/** The `count` month keys ending at `last`, newest first. */
+export function monthKeysBack(last: string, count: number): string[] {
+  const [y, m] = last.split("-").map(Number);
+  return Array.from({ length: count }, (_, i) => {
+    const d = new Date(Date.UTC(y, m - 1 - i, 1));
+    return `${d.getUTCFullYear()}-${String(d.getUTCMonth() + 1).padStart(2, "0")}`;
+  });
+}

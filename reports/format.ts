@@ -94,3 +94,20 @@ export function monthLabel(period: string): string {
   const [y, m] = period.split("-").map(Number);
   return `${MONTHS[m - 1]} ${y}`;
 }
+
+/*
+ * Dates are formatted on the server in UTC with a fixed locale so the page, its print and the
+ * audit trail read the same wherever the reader sits.
+ */
+const dateFmt = new Intl.DateTimeFormat("en-GB", { day: "2-digit", month: "short", year: "numeric", timeZone: "UTC" });
+const timeFmt = new Intl.DateTimeFormat("en-GB", { hour: "2-digit", minute: "2-digit", hour12: false, timeZone: "UTC" });
+
+/** "12 Mar 2026". */
+export function formatDate(d: Date): string {
+  return dateFmt.format(d);
+}
+
+/** "12 Mar 2026 09:04 UTC". */
+export function formatDateTime(d: Date): string {
+  return `${dateFmt.format(d)} ${timeFmt.format(d)} UTC`;
+}

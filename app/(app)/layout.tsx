@@ -3,7 +3,7 @@ import { Providers } from "@/components/providers";
 import { AppHeader } from "@/components/shell/app-header";
 import { HydrationMark } from "@/components/shell/hydration-mark";
 import { CautionLine } from "@/components/ui/caution-line";
-import { previousMonthKey } from "@/components/ui/format";
+import { previousMonthKey } from "@/lib/period";
 import { getDb } from "@/db";
 import { listSites } from "@/db/queries/sites";
 import { requirePageActor } from "@/lib/auth/guard";

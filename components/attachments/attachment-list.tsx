@@ -3,7 +3,7 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useId, useRef, useState } from "react";
 import { FieldError } from "@/components/ui/field-error";
-import { formatDateTime } from "@/components/ui/format";
+import { formatDateTime } from "@/reports/format";
 import { Notice } from "@/components/ui/status";
 import { buttonDanger, buttonPrimary, input, label, link } from "@/components/ui/styles";
 import { ATTACHMENT_CATEGORIES, CATEGORY_LABELS, MAX_ATTACHMENT_BYTES, type AttachmentCategory } from "@/lib/attachments/categories";

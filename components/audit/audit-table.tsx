@@ -1,4 +1,4 @@
-import { formatDateTime } from "@/components/ui/format";
+import { formatDateTime } from "@/reports/format";
 import type { AuditTrailRow } from "@/db/queries/audit-trail";
 import { AuditDiff } from "./audit-diff";
 import { actionLabel, channelLabel, entityLabel } from "./labels";

@@ -1,6 +1,6 @@
 "use client";
 
-import { formatMonth } from "@/components/ui/format";
+import { monthLabel } from "@/reports/format";
 import { MonthStateBadge, type MonthState } from "@/components/ui/month-state";
 import { Status } from "@/components/ui/status";
 import type { PreviewBody } from "@/lib/import/commit";
@@ -14,7 +14,7 @@ export function MonthPlanTable({ month, streams }: { month: Month; streams: Wiza
   return (
     <section className="border border-rule bg-white">
       <header className="flex flex-wrap items-center justify-between gap-2 border-b border-rule bg-paper-deep px-3 py-1.5">
-        <h4 className="font-semibold">{formatMonth(month.month)}</h4>
+        <h4 className="font-semibold">{monthLabel(month.month)}</h4>
         <span className="text-sm">
           {month.readOnly ? <Status tone="locked">Read-only: {month.state?.replace("_", " ")}; this file cannot be imported</Status> : <MonthStateBadge state={(month.state as MonthState | null) ?? null} />}
         </span>

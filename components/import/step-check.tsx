@@ -1,7 +1,7 @@
 "use client";
 
 import { useId } from "react";
-import { formatDateTime } from "@/components/ui/format";
+import { formatDateTime } from "@/reports/format";
 import { Notice } from "@/components/ui/status";
 import { buttonPrimary, buttonSecondary } from "@/components/ui/styles";
 import type { PreviewBody } from "@/lib/import/commit";

@@ -1,7 +1,7 @@
 "use client";
 
 import Link from "next/link";
-import { formatDateTime, formatMonth } from "@/components/ui/format";
+import { formatDateTime, monthLabel } from "@/reports/format";
 import { Notice } from "@/components/ui/status";
 import { buttonSecondary, link } from "@/components/ui/styles";
 import type { CommitBody } from "@/lib/import/commit";
@@ -38,7 +38,7 @@ export function StepDone({ result: r, siteId, onRestart }: { result: CommitBody;
             <tr key={m.month} className="border-t border-rule">
               <td className="px-3 py-1">
                 <Link className={link} href={`/sites/${siteId}/months/${m.month}`}>
-                  {formatMonth(m.month)}
+                  {monthLabel(m.month)}
                 </Link>
               </td>
               <td className="num px-3 py-1 text-right">{m.readings}</td>

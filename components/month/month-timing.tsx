@@ -1,4 +1,4 @@
-import { formatMonth } from "@/components/ui/format";
+import { monthLabel } from "@/reports/format";
 import { Notice } from "@/components/ui/status";
 import { dayLabel as day, type MonthTiming } from "@/lib/period";
 
@@ -6,7 +6,7 @@ import { dayLabel as day, type MonthTiming } from "@/lib/period";
 export function MonthTimingNotice({ period, timing, coveredThrough }: { period: string; timing: MonthTiming; coveredThrough: string | null }) {
   if (timing.kind === "future") {
     return (
-      <Notice tone="info" title={`${formatMonth(period)} has not begun`}>
+      <Notice tone="info" title={`${monthLabel(period)} has not begun`}>
         Its figures can be entered from {day(timing.opensOn)}. Until then there is nothing to enter, balance or sign.
       </Notice>
     );

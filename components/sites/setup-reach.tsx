@@ -1,7 +1,7 @@
-import { formatMonth } from "@/components/ui/format";
+import { monthLabel } from "@/reports/format";
 import { Notice } from "@/components/ui/status";
 
-const list = (periods: string[]) => (periods.length > 4 ? `${formatMonth(periods[0])} to ${formatMonth(periods[periods.length - 1])}` : periods.map(formatMonth).join(", "));
+const list = (periods: string[]) => (periods.length > 4 ? `${monthLabel(periods[0])} to ${monthLabel(periods[periods.length - 1])}` : periods.map(monthLabel).join(", "));
 
 /** Which months a change of the site's set-up will reach, said before anyone saves. */
 export function SetupReach({ reached, frozen, what }: { reached: string[]; frozen: string[]; what: string }) {

@@ -4,7 +4,7 @@ import type { Db } from "@/db/client";
 import { recordAudit } from "@/db/queries/audit";
 import { firstBatchOfFile, insertBatch, saveMapping } from "@/db/queries/imports";
 import { lockMonth } from "@/db/queries/months";
-import { formatDateTime } from "@/components/ui/format";
+import { formatDateTime } from "@/reports/format";
 import { HttpError } from "@/lib/auth/errors";
 import type { Unit } from "@/lib/balance/units";
 import type { Actor } from "@/lib/auth/guard";

@@ -7,7 +7,7 @@ import "server-only";
 import type { Db } from "@/db/client";
 import { listSites } from "@/db/queries/sites";
 import type { Role } from "@/lib/auth/roles";
-import { currentMonthKey, monthTiming } from "@/lib/period";
+import { currentMonthKey, monthKeysBack, monthTiming } from "@/lib/period";
 import { STATE_LABELS, type MonthState } from "@/lib/lifecycle/transitions";
 import { mapLimited } from "@/lib/concurrency";
 import { loadSiteSeries } from "./site-year";
@@ -51,17 +51,8 @@ export function nextStep(m: Pick<SeriesMonth, "state" | "timing" | "computes">):
   }
 }
 
-/** The last `count` month keys up to and including `last`, newest first. */
-function monthsBack(last: string, count: number): string[] {
-  const [y, m] = last.split("-").map(Number);
-  return Array.from({ length: count }, (_, i) => {
-    const d = new Date(Date.UTC(y, m - 1 - i, 1));
-    return `${d.getUTCFullYear()}-${String(d.getUTCMonth() + 1).padStart(2, "0")}`;
-  });
-}
-
 export async function ledgerRows(db: Db, organisationId: string, now = new Date()): Promise<{ rows: LedgerRow[]; months: string[] }> {
-  const months = monthsBack(currentMonthKey(now), 13);
+  const months = monthKeysBack(currentMonthKey(now), 13);
   const years = [...new Set(months.map((m) => m.slice(0, 4)))];
   const inWindow = new Set(months);
   const sites = await listSites(db, organisationId);

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import { formatDateTime } from "@/components/ui/format";
+import { formatDateTime } from "@/reports/format";
 import { Status } from "@/components/ui/status";
 import { pageTitle } from "@/components/ui/styles";
 import { getDb } from "@/db";

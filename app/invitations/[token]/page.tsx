@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { CautionLine } from "@/components/ui/caution-line";
-import { formatDateTime } from "@/components/ui/format";
+import { formatDateTime } from "@/reports/format";
 import { BeamMark } from "@/components/ui/icons";
 import { Notice } from "@/components/ui/status";
 import { link } from "@/components/ui/styles";

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { EmptyState } from "@/components/ui/empty-state";
-import { formatDate, formatDateTime } from "@/components/ui/format";
+import { formatDate, formatDateTime } from "@/reports/format";
 import { Status } from "@/components/ui/status";
 import { link, pageTitle } from "@/components/ui/styles";
 import { getDb } from "@/db";

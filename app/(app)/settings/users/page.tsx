@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import { formatDate, formatDateTime } from "@/components/ui/format";
+import { formatDate, formatDateTime } from "@/reports/format";
 import { Status, type StatusTone } from "@/components/ui/status";
 import { pageTitle } from "@/components/ui/styles";
 import { getDb } from "@/db";

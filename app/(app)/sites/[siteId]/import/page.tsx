@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { ImportWizard } from "@/components/import/import-wizard";
 import type { SavedMapping, WizardStream } from "@/components/import/types";
-import { formatDateTime } from "@/components/ui/format";
+import { formatDateTime } from "@/reports/format";
 import { pageTitle } from "@/components/ui/styles";
 import { getDb } from "@/db";
 import { importStreams, listBatches, listMappings } from "@/db/queries/imports";

@@ -3,7 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { MonthEntryForm } from "@/components/month/month-entry-form";
 import { monthEntryProps } from "@/components/month/month-entry-props";
-import { formatDateTime, formatMonth, isMonthKey } from "@/components/ui/format";
+import { formatDateTime, monthLabel } from "@/reports/format";
 import { MonthStateBadge } from "@/components/ui/month-state";
 import { link, pageTitle } from "@/components/ui/styles";
 import { getDb } from "@/db";
@@ -13,7 +13,7 @@ import { previousAnalyses } from "@/db/queries/streams";
 import { can, requirePageActor } from "@/lib/auth/guard";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { documentInput, isFrozenState } from "@/lib/ledger/month-runs";
-import { monthTiming } from "@/lib/period";
+import { isMonthKey, monthTiming } from "@/lib/period";
 import { MonthTimingNotice } from "@/components/month/month-timing";
 import { EMISSIONS_METHOD_LABELS, METERING_REFERENCE_LABELS } from "@/lib/validations/site";
 
@@ -48,7 +48,7 @@ function withFrozenStreams(bundle: MonthBundle, doc: FrozenDocument): MonthBundl
 
 export async function generateMetadata({ params }: { params: Promise<Params> }): Promise<Metadata> {
   const { month } = await params;
-  return { title: isMonthKey(month) ? formatMonth(month) : "Month" };
+  return { title: isMonthKey(month) ? monthLabel(month) : "Month" };
 }
 
 /**
@@ -70,7 +70,7 @@ export default async function MonthPage({ params }: { params: Promise<Params> })
         <p className="text-sm text-ink-soft">
           {site.name} <span className="num text-ink-faint">{site.code}</span>
         </p>
-        <h1 className={pageTitle}>{formatMonth(month)}</h1>
+        <h1 className={pageTitle}>{monthLabel(month)}</h1>
         <MonthTimingNotice period={month} timing={timing} coveredThrough={null} />
       </div>
     );
@@ -84,7 +84,7 @@ export default async function MonthPage({ params }: { params: Promise<Params> })
 
   let readOnlyReason: string | null = null;
   if (record && isFrozenState(record.state)) {
-    readOnlyReason = `${formatMonth(month)} is ${record.state.replace("_", " ")}, so its figures are frozen${frozen ? ` (revision ${record.revision}, frozen ${formatDateTime(frozen.createdAt)}, document SHA-256 ${frozen.documentSha256.slice(0, 12)}…)` : ""}. Correcting them means reopening the month with a written reason, which starts a new revision.`;
+    readOnlyReason = `${monthLabel(month)} is ${record.state.replace("_", " ")}, so its figures are frozen${frozen ? ` (revision ${record.revision}, frozen ${formatDateTime(frozen.createdAt)}, document SHA-256 ${frozen.documentSha256.slice(0, 12)}…)` : ""}. Correcting them means reopening the month with a written reason, which starts a new revision.`;
   } else if (!can(actor, "month:enter")) {
     readOnlyReason = `You are signed in as ${actor.roles.map((r) => ROLE_LABELS[r]).join(" and ")}: the site's process engineers enter these figures, and you see them as they are saved.`;
   } else if (site.archivedAt) {
@@ -112,7 +112,7 @@ export default async function MonthPage({ params }: { params: Promise<Params> })
               </>
             ) : null}
           </p>
-          <h1 className={pageTitle}>{formatMonth(month)}</h1>
+          <h1 className={pageTitle}>{monthLabel(month)}</h1>
         </div>
         <div className="text-right text-sm">
           <MonthStateBadge state={record?.state ?? null} />

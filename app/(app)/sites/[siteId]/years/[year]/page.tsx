@@ -1,6 +1,5 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
-import { formatMonth } from "@/components/ui/format";
 import { Suspense } from "react";
 import { Section } from "@/components/review/figure-table";
 import { AnnualSignForm } from "@/components/overview/annual-sign-form";
@@ -22,7 +21,7 @@ import { monthSourcesOf } from "@/lib/lifecycle/sign-annual";
 import { annualReadiness, endedRuns, rollUpRuns, yearBenchmarks, yearBySource, yearEuEtsAndCbam, yearTheoreticalMinimum } from "@/lib/ledger/year";
 import { CbamFigures, EuEtsCheck } from "@/components/overview/eu-ets-cbam";
 import { KIND_LABELS } from "@/reports/build-model-parts";
-import { fixed, small, utcStamp } from "@/reports/format";
+import { fixed, monthLabel, small, utcStamp } from "@/reports/format";
 import { signAnnualStatementAction } from "./actions";
 import { buildAnnualModel } from "@/reports/build-annual-model";
 
@@ -99,7 +98,7 @@ export default async function YearPage({ params }: { params: Promise<Params> }) 
       ) : null}
       {series.totals.months_left_out_in_progress.length ? (
         <Notice tone="pending" title="Provisional: a month in progress is left out">
-          {series.totals.months_left_out_in_progress.map(formatMonth).join(", ")} has not ended: its figures are shown in the months table but not counted in the
+          {series.totals.months_left_out_in_progress.map(monthLabel).join(", ")} has not ended: its figures are shown in the months table but not counted in the
           totals, intensities or uncertainty below, which cover {series.totals.months_included.length} complete{" "}
           {series.totals.months_included.length === 1 ? "month" : "months"}.
         </Notice>

@@ -7,7 +7,7 @@ import { BalanceSection } from "@/components/review/balance-section";
 import { Section } from "@/components/review/figure-table";
 import { EmissionsSections } from "@/components/review/statement-sections";
 import { EmptyState } from "@/components/ui/empty-state";
-import { formatDateTime, formatMonth, isMonthKey } from "@/components/ui/format";
+import { formatDateTime, monthLabel } from "@/reports/format";
 import { Notice } from "@/components/ui/status";
 import { link, pageTitle } from "@/components/ui/styles";
 import { getDb } from "@/db";
@@ -17,7 +17,7 @@ import { plainIssue } from "@/lib/plain-path";
 import { RULES, STATE_LABELS, TRANSITIONS, type TransitionName } from "@/lib/lifecycle/transitions";
 import { EMISSIONS_METHOD_CHOICES, FACTOR_SET_CHOICES, GWP_CHOICES, emissionsMethodLabel, factorSetLabel, gwpLabel } from "@/lib/ledger/method-labels";
 import { isFrozenState } from "@/lib/ledger/month-runs";
-import { monthTiming } from "@/lib/period";
+import { isMonthKey, monthTiming } from "@/lib/period";
 import { MethodPanel } from "@/components/review/method-panel";
 import { MonthTimingNotice } from "@/components/month/month-timing";
 import { explainFlagAction, setMonthMethodAction, transitionAction } from "./actions";
@@ -26,7 +26,7 @@ type Params = { siteId: string; month: string };
 
 export async function generateMetadata({ params }: { params: Promise<Params> }): Promise<Metadata> {
   const { month } = await params;
-  return { title: isMonthKey(month) ? `Review ${formatMonth(month)}` : "Review" };
+  return { title: isMonthKey(month) ? `Review ${monthLabel(month)}` : "Review" };
 }
 
 /**
@@ -64,7 +64,7 @@ export default async function ReviewPage({ params, searchParams }: { params: Pro
               figures of the month
             </Link>
           </p>
-          <h1 className={pageTitle}>Review and sign-off: {formatMonth(period)}</h1>
+          <h1 className={pageTitle}>Review and sign-off: {monthLabel(period)}</h1>
         </div>
       </div>
 
