@@ -9,13 +9,13 @@ import { uncertaintyJson } from "@/lib/balance/result-emissions";
 import { YEAR_CORRELATION, type YearResult } from "@/lib/emissions/year";
 import { endedRuns, yearEuEtsAndCbam, type MonthRun, type YearBenchmark } from "@/lib/ledger/year";
 import { hasEnded } from "@/lib/period";
+import { STATE_LABELS } from "@/lib/month-states";
 import type { InstallationIdentity } from "@/lib/validations/installation";
 import { declarationText, installationFacts } from "@/reports/build-model";
 import { flagRows, meteringLabel, methodSection, revisionRows, uncertaintyRow, unconfirmedRows, type RevisionFact } from "@/reports/build-model-parts";
 import { DASH, compare, fixed, monthLabel, percentOver, small, utcStamp } from "@/reports/format";
 import { STATEMENT_CAUTIONS, type AnnualStatementModel, type EuEtsSection, type GasRow, type IntensityRow } from "@/reports/model";
 
-const STATE_LABEL: Record<string, string> = { open: "Open", balanced: "Balanced", in_review: "In review", signed: "Signed", submitted: "Submitted" };
 
 export interface AnnualModelInput {
   organisation: string;
@@ -123,7 +123,7 @@ export function buildAnnualModel(input: AnnualModelInput): AnnualStatementModel 
         netCo2: fixed(num(d?.co2.net_t), 1),
         co2e: fixed(num(d?.emissions.co2e_t), 1),
         intensity: fixed(num(d?.intensity.co2e_t_per_t_nh3), 3),
-        status: !hasEnded(r.period, now) ? "In progress, not counted" : r.result ? STATE_LABEL[r.state] : "Does not compute",
+        status: !hasEnded(r.period, now) ? "In progress, not counted" : r.result ? STATE_LABELS[r.state] : "Does not compute",
       };
     }),
     totals: {

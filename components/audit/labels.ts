@@ -3,7 +3,7 @@
  * people read them. The trail itself keeps the codes (and the CSV export carries them), so
  * nothing is lost; this only decides what is shown.
  */
-import { STATE_LABELS, type MonthState } from "@/lib/lifecycle/transitions";
+import { STATE_LABELS, type MonthState } from "@/lib/month-states";
 import { fixed, signed } from "@/reports/format";
 import { UUID } from "@/db/queries/uuid";
 

@@ -1,7 +1,7 @@
 import type { YearSeries } from "@/lib/ledger/series";
 import { fixed, signed } from "@/reports/format";
+import { STATE_LABELS } from "@/lib/month-states";
 
-const STATE: Record<string, string> = { open: "Open", balanced: "Balanced", in_review: "In review", signed: "Signed", submitted: "Submitted" };
 
 /** The numbers behind the charts, month by month, units in the column headings. */
 export function SeriesTable({ series }: { series: YearSeries }) {
@@ -43,7 +43,7 @@ export function SeriesTable({ series }: { series: YearSeries }) {
               <th scope="row" className="px-2.5 py-1 text-left font-normal num">
                 {m.month}
               </th>
-              <td className="px-2.5 py-1">{m.state ? STATE[m.state] : "Not started"}</td>
+              <td className="px-2.5 py-1">{m.state ? STATE_LABELS[m.state] : "Not started"}</td>
               <td className={cell}>{fixed(m.ammonia_t, 1)}</td>
               <td className={cell}>{fixed(m.co2e_t_per_t_nh3, 3)}</td>
               <td className={cell}>{fixed(m.co2_t_per_t_nh3, 3)}</td>

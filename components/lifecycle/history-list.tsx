@@ -1,6 +1,6 @@
 import { link } from "@/components/ui/styles";
 import type { StatementSummary } from "@/db/queries/statements";
-import { STATE_LABELS, type MonthState } from "@/lib/lifecycle/transitions";
+import { STATE_LABELS, type MonthState } from "@/lib/month-states";
 import { utcStamp } from "@/reports/format";
 
 export interface HistoryItem {

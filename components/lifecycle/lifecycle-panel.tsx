@@ -1,7 +1,8 @@
 import { MonthStateBadge } from "@/components/ui/month-state";
 import type { ActionResult } from "@/lib/auth/guard";
 import type { Role } from "@/lib/auth/roles";
-import { MIN_REASON_CHARS, STATE_LABELS, mayPerform, rolesText, transitionsFrom, type MonthState, type TransitionRule } from "@/lib/lifecycle/transitions";
+import { MIN_REASON_CHARS, mayPerform, rolesText, transitionsFrom, type TransitionRule } from "@/lib/lifecycle/transitions";
+import { STATE_LABELS, type MonthState } from "@/lib/month-states";
 import { SignForm, type SignFormProps } from "./sign-form";
 import { TransitionForm } from "./transition-form";
 

@@ -1,15 +1,14 @@
+import { STATE_LABELS, type MonthState } from "@/lib/month-states";
 import { Status, type StatusTone } from "./status";
 
-export type MonthState = "open" | "balanced" | "in_review" | "signed" | "submitted";
+export type { MonthState };
 
-/** The month life cycle in the product's words (BRIEF.md), each with its own icon. */
-export const MONTH_STATES: Record<MonthState, { label: string; tone: StatusTone }> = {
-  open: { label: "Open", tone: "pending" },
-  balanced: { label: "Balanced", tone: "ok" },
-  in_review: { label: "In review", tone: "info" },
-  signed: { label: "Signed", tone: "locked" },
-  submitted: { label: "Submitted", tone: "ok" },
-};
+const TONES: Record<MonthState, StatusTone> = { open: "pending", balanced: "ok", in_review: "info", signed: "locked", submitted: "ok" };
+
+/** The month life cycle in the product's words (lib/month-states.ts), each with its own icon. */
+export const MONTH_STATES: Record<MonthState, { label: string; tone: StatusTone }> = Object.fromEntries(
+  Object.entries(STATE_LABELS).map(([state, label]) => [state, { label, tone: TONES[state as MonthState] }]),
+) as Record<MonthState, { label: string; tone: StatusTone }>;
 
 export function MonthStateBadge({ state }: { state: MonthState | null }) {
   if (!state) return <Status tone="info">Not started</Status>;

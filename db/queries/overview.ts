@@ -1,7 +1,8 @@
 import { and, asc, desc, eq, getTableColumns, inArray, isNull, like, max, sql } from "drizzle-orm";
 import type { Db, Tx } from "../client";
 import { preparedQuery, readAll } from "../prepared";
-import { FROZEN_MONTH_STATES, months, monthSnapshots, sites, statements, streams, type MonthSnapshotRow } from "../schema";
+import { FROZEN_MONTH_STATES } from "@/lib/month-states";
+import { months, monthSnapshots, sites, statements, streams, type MonthSnapshotRow } from "../schema";
 import { analysesOfMonths, readingsOfMonths, siteStreamsQuery } from "./months";
 import { findSite, listSites } from "./sites";
 import { UUID } from "./uuid";

@@ -1,4 +1,5 @@
 import { pgEnum } from "drizzle-orm/pg-core";
+import { MONTH_STATES } from "../../lib/month-states";
 
 /** Roles are held per organisation; one person may hold several (BRIEF.md, "Who uses it"). */
 export const roleEnum = pgEnum("role", [
@@ -10,16 +11,7 @@ export const roleEnum = pgEnum("role", [
 ]);
 
 /** Month life cycle: Open → Balanced → In review → Signed → Submitted. */
-export const monthStateEnum = pgEnum("month_state", [
-  "open",
-  "balanced",
-  "in_review",
-  "signed",
-  "submitted",
-]);
-
-/** States whose figures are frozen in a snapshot: nobody edits them until a reopen. */
-export const FROZEN_MONTH_STATES = ["in_review", "signed", "submitted"] as const satisfies readonly (typeof monthStateEnum.enumValues)[number][];
+export const monthStateEnum = pgEnum("month_state", MONTH_STATES);
 
 export const streamKindEnum = pgEnum("stream_kind", [
   "feed-gas",

@@ -8,7 +8,7 @@ import type { Db } from "@/db/client";
 import { listSites } from "@/db/queries/sites";
 import type { Role } from "@/lib/auth/roles";
 import { currentMonthKey, monthKeysBack, monthTiming } from "@/lib/period";
-import { STATE_LABELS, type MonthState } from "@/lib/lifecycle/transitions";
+import { STATE_LABELS, type MonthState } from "@/lib/month-states";
 import { mapLimited } from "@/lib/concurrency";
 import { loadSiteSeries } from "./site-year";
 import type { SeriesMonth } from "./series";

@@ -22,7 +22,7 @@ import type { StreamFacts } from "@/reports/build-model";
 import { calculateMonth, type MonthCalculation } from "./calculate-month";
 import { canonicalJson, freezeCalculation, sha256Of, thawCalculation } from "./freeze";
 import type { MonthDocumentInput } from "./month-document";
-import { FROZEN_MONTH_STATES } from "@/db/schema/enums";
+import { FROZEN_MONTH_STATES } from "@/lib/month-states";
 
 export const isFrozenState = (state: string | null | undefined): boolean => (FROZEN_MONTH_STATES as readonly string[]).includes(state ?? "");
 

@@ -7,7 +7,8 @@ import { num } from "@/lib/balance/decimal";
 import { namedSuspects } from "@/lib/balance/suspects";
 import type { YearResult } from "@/lib/emissions/year";
 import { hasEnded, monthTiming } from "@/lib/period";
-import { endedRuns, monthsOfYear, yearBenchmarks, yearTheoreticalMinimum, type MonthRun, type MonthStateName, type YearBenchmark } from "./year";
+import { endedRuns, monthsOfYear, yearBenchmarks, yearTheoreticalMinimum, type MonthRun, type YearBenchmark } from "./year";
+import type { MonthState } from "@/lib/month-states";
 
 export const SERIES_FORMAT = "synledger.year-series/1";
 
@@ -20,7 +21,7 @@ export interface StreamLabel {
 export interface SeriesMonth {
   month: string;
   /** null: nobody has started the month. */
-  state: MonthStateName | null;
+  state: MonthState | null;
   /** ended: its last day has passed; in-progress: the running month (left out of totals); future: not begun. */
   timing: "ended" | "in-progress" | "future";
   /** True when the figures come from the revision's frozen snapshot. */

@@ -11,14 +11,14 @@ import { BUILT_IN_FACTOR_SETS } from "@/lib/emissions/registry";
 import { rollUpYear, type YearResult } from "@/lib/emissions/year";
 import { hasEnded } from "@/lib/period";
 import { euFiguresJson, euFiguresOf } from "@/lib/balance/year";
+import type { MonthState } from "@/lib/month-states";
 
-export type MonthStateName = "open" | "balanced" | "in_review" | "signed" | "submitted";
 
 /** One stored month after its engine run; `result` is null when the stored figures do not compute. */
 export interface MonthRun {
   id: string;
   period: string;
-  state: MonthStateName;
+  state: MonthState;
   revision: number;
   version: number;
   /** The plant-month document the engine read (numbers as strings). */

@@ -6,7 +6,8 @@ import { ROLE_LABELS, type Role } from "@/lib/auth/roles";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { appUrl } from "@/lib/mail/transport";
 import { monthLabel } from "@/reports/format";
-import { RULES, STATE_LABELS, type TransitionName } from "./transitions";
+import { RULES, type TransitionName } from "./transitions";
+import { STATE_LABELS } from "@/lib/month-states";
 
 const NEXT_STEP: Record<TransitionName, string> = {
   balance: "An environmental officer can now check the method and factor set and send the statement for sign-off.",

@@ -16,7 +16,8 @@ import { actAsLifecycle } from "./db-flag";
 import { queueTransitionNotice } from "./notify";
 import type { LifecycleActor } from "./actor";
 import { signMonth } from "./sign";
-import { MIN_REASON_CHARS, RULES, STATE_LABELS, mayPerform, reasonIsLongEnough, rolesText, type MonthState, type TransitionName } from "./transitions";
+import { MIN_REASON_CHARS, RULES, mayPerform, reasonIsLongEnough, rolesText, type TransitionName } from "./transitions";
+import { STATE_LABELS, type MonthState } from "@/lib/month-states";
 
 
 export interface TransitionInput {

@@ -4,16 +4,8 @@
  * the same table and cannot disagree about who may do what.
  */
 import { PERMISSIONS, ROLE_LABELS, type Role } from "@/lib/auth/roles";
+import type { MonthState } from "@/lib/month-states";
 
-export type MonthState = "open" | "balanced" | "in_review" | "signed" | "submitted";
-
-export const STATE_LABELS: Record<MonthState, string> = {
-  open: "Open",
-  balanced: "Balanced",
-  in_review: "In review",
-  signed: "Signed",
-  submitted: "Submitted",
-};
 
 export const TRANSITIONS = ["balance", "send-for-review", "return", "sign", "record-submission", "reopen"] as const;
 export type TransitionName = (typeof TRANSITIONS)[number];

@@ -2,7 +2,8 @@ import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { statements } from "@/db/schema";
 import { ROLES, type Role } from "@/lib/auth/roles";
-import { RULES, TRANSITIONS, mayPerform, type MonthState, type TransitionName } from "@/lib/lifecycle/transitions";
+import { RULES, TRANSITIONS, mayPerform, type TransitionName } from "@/lib/lifecycle/transitions";
+import type { MonthState } from "@/lib/month-states";
 import { closeTestDb, testDb } from "../support/db";
 import { act, forceState, lifecycleOrg, monthRow, refusal, type LifecycleOrg } from "./lifecycle-support";
 

@@ -8,7 +8,8 @@ import { guardedAction, type ActionResult } from "@/lib/auth/guard";
 import { explainFlag } from "@/lib/ledger/flag-notes";
 import { setMonthMethod } from "@/lib/ledger/month-method";
 import { transitionMonth } from "@/lib/lifecycle/service";
-import { STATE_LABELS, TRANSITIONS } from "@/lib/lifecycle/transitions";
+import { TRANSITIONS } from "@/lib/lifecycle/transitions";
+import { STATE_LABELS } from "@/lib/month-states";
 
 const transitionSchema = z.object({
   siteId: z.string().min(1),

@@ -5,7 +5,8 @@ import { readJsonBody } from "@/lib/api/body";
 import { v1Route } from "@/lib/api/route";
 import { periodParam } from "@/lib/api/site-month";
 import { transitionMonth } from "@/lib/lifecycle/service";
-import { STATE_LABELS, TRANSITIONS } from "@/lib/lifecycle/transitions";
+import { TRANSITIONS } from "@/lib/lifecycle/transitions";
+import { STATE_LABELS } from "@/lib/month-states";
 
 type Params = { siteId: string; month: string };
 
