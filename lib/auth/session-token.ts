@@ -2,6 +2,7 @@ import "server-only";
 import { headers } from "next/headers";
 import { decode, getToken, type JWT } from "next-auth/jwt";
 import { env } from "@/lib/env";
+import { boundedCache } from "@/lib/memo";
 
 /** The claims our jwt callback (auth.config.ts) writes into the session cookie. */
 export interface SessionClaims {
@@ -14,7 +15,6 @@ export interface SessionClaims {
 
 /** Auth.js's cookie names: the `__Secure-` one is what it sets over HTTPS. */
 const COOKIE_NAMES = ["__Secure-authjs.session-token", "authjs.session-token"] as const;
-const MEMO_MAX = 2_000;
 
 /**
  * Decoded cookies by their exact text. Decoding derives the key (HKDF) and decrypts the JWE again,
@@ -22,7 +22,7 @@ const MEMO_MAX = 2_000;
  * token already opened is looked up instead (its expiry still checked on every use). Whether the
  * session may still act is not cached: the guard asks the database on every request.
  */
-const memo = new Map<string, JWT>();
+const memo = boundedCache<JWT>("session-claims", 2_000);
 
 async function memoDecode(params: Parameters<typeof decode>[0]): Promise<JWT | null> {
   const key = `${params.salt}\u0000${params.token}`;
@@ -31,7 +31,6 @@ async function memoDecode(params: Parameters<typeof decode>[0]): Promise<JWT | n
   const claims = await decode(params);
   if (!claims) return null;
   memo.set(key, claims);
-  if (memo.size > MEMO_MAX) memo.delete(memo.keys().next().value!);
   return claims;
 }
 

@@ -23,6 +23,7 @@ import { calculateMonth, type MonthCalculation } from "./calculate-month";
 import { canonicalJson, freezeCalculation, sha256Of, thawCalculation } from "./freeze";
 import type { MonthDocumentInput } from "./month-document";
 import { FROZEN_MONTH_STATES } from "@/lib/month-states";
+import { boundedCache } from "@/lib/memo";
 
 export const isFrozenState = (state: string | null | undefined): boolean => (FROZEN_MONTH_STATES as readonly string[]).includes(state ?? "");
 
@@ -100,9 +101,7 @@ export type StoredMonthRun =
  */
 // 8 000 runs cover the thirteen-month ledger of a 500-site organisation with room to spare; the
 // bench reports the server's resident memory after loading that fleet (bench/results.md).
-const CACHE_MAX = 8000;
-const g = globalThis as unknown as { __synledgerRunCache?: Map<string, MonthCalculation> };
-const cache = (g.__synledgerRunCache ??= new Map());
+const cache = boundedCache<MonthCalculation>("runs", 8000);
 
 /** The key of a run in the cache: the hash of everything the engine reads. */
 export function calculationKey(input: MonthDocumentInput, tolerance: string): string {
@@ -111,15 +110,9 @@ export function calculationKey(input: MonthDocumentInput, tolerance: string): st
 
 export function cachedCalculation(input: MonthDocumentInput, tolerance: string, key = calculationKey(input, tolerance)): MonthCalculation {
   const hit = cache.get(key);
-  if (hit) {
-    // Re-insert so the Map's order approximates least-recently-used.
-    cache.delete(key);
-    cache.set(key, hit);
-    return hit;
-  }
+  if (hit) return hit;
   const calc = calculateMonth(input, tolerance);
   cache.set(key, calc);
-  if (cache.size > CACHE_MAX) cache.delete(cache.keys().next().value!);
   return calc;
 }
 

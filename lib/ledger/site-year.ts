@@ -8,6 +8,7 @@ import "server-only";
 import { createHash } from "node:crypto";
 import type { Db, Tx } from "@/db/client";
 import { loadSiteYearRows, siteDataVersion, type SiteRow, type StreamRow } from "@/db/queries/overview";
+import { boundedCache } from "@/lib/memo";
 import { currentMonthKey } from "@/lib/period";
 import { cachedCalculation, calculationKey, documentInput, isFrozenState, runOfSnapshot, type FrozenFacts } from "./month-runs";
 import { buildSeries, type YearSeries } from "./series";
@@ -84,9 +85,7 @@ export async function loadSiteYear(
  * same unchanged years again and again; rolling up twelve months in Decimal is most of the work.
  * Callers treat the answer as read-only.
  */
-const SERIES_MAX = 4000;
-const g = globalThis as unknown as { __synledgerSeriesCache?: Map<string, YearSeries> };
-const seriesCache = (g.__synledgerSeriesCache ??= new Map());
+const seriesCache = boundedCache<YearSeries>("series-by-fingerprint", 4000);
 
 /** The series of a loaded year (see lib/ledger/series.ts). */
 export function seriesOf(y: SiteYear, now = new Date()): YearSeries {
@@ -102,7 +101,6 @@ export function seriesOf(y: SiteYear, now = new Date()): YearSeries {
     now,
   });
   seriesCache.set(key, series);
-  if (seriesCache.size > SERIES_MAX) seriesCache.delete(seriesCache.keys().next().value!);
   return series;
 }
 
@@ -114,7 +112,7 @@ export function seriesOf(y: SiteYear, now = new Date()): YearSeries {
  * that commits after it only makes this entry hold newer figures than its key, and every later
  * read sees the new version and misses.
  */
-const versionedSeries = new Map<string, YearSeries>();
+const versionedSeries = boundedCache<YearSeries>("series-by-version", 4000);
 
 export async function loadSiteSeries(
   db: Db | Tx,
@@ -133,6 +131,5 @@ export async function loadSiteSeries(
   if (!y) return null;
   const series = seriesOf(y, now);
   versionedSeries.set(key, series);
-  if (versionedSeries.size > SERIES_MAX) versionedSeries.delete(versionedSeries.keys().next().value!);
   return series;
 }
