@@ -7,13 +7,13 @@
  * An empty value counts as unset, as the shell scripts write them.
  */
 import { z } from "zod";
+import { blankIsAbsent } from "./validations/blank";
 
-const unsetIfEmpty = (v: unknown) => (typeof v === "string" && v.trim() === "" ? undefined : v);
-const text = () => z.preprocess(unsetIfEmpty, z.string().optional());
-const url = (name: string) => z.preprocess(unsetIfEmpty, z.url({ error: `${name} must be a URL` }).optional());
+const text = () => z.preprocess(blankIsAbsent, z.string().optional());
+const url = (name: string) => z.preprocess(blankIsAbsent, z.url({ error: `${name} must be a URL` }).optional());
 const whole = (name: string, fallback: number, min = 0) =>
-  z.preprocess(unsetIfEmpty, z.coerce.number({ error: `${name} must be a whole number` }).int(`${name} must be a whole number`).min(min, `${name} must be at least ${min}`).default(fallback));
-const secret = (name: string) => z.preprocess(unsetIfEmpty, z.string().min(32, `${name} must be at least 32 characters`).optional());
+  z.preprocess(blankIsAbsent, z.coerce.number({ error: `${name} must be a whole number` }).int(`${name} must be a whole number`).min(min, `${name} must be at least ${min}`).default(fallback));
+const secret = (name: string) => z.preprocess(blankIsAbsent, z.string().min(32, `${name} must be at least 32 characters`).optional());
 
 const schema = z.object({
   DATABASE_URL: text(),
@@ -30,12 +30,12 @@ const schema = z.object({
   APP_URL: url("APP_URL"),
   AUTH_URL: url("AUTH_URL"),
   SMTP_URL: text(),
-  MAIL_FROM: z.preprocess(unsetIfEmpty, z.string().default("Synledger <no-reply@synledger.invalid>")),
+  MAIL_FROM: z.preprocess(blankIsAbsent, z.string().default("Synledger <no-reply@synledger.invalid>")),
   /** "0" keeps this instance from delivering the outbox (another one does). */
-  MAIL_WORKER: z.preprocess(unsetIfEmpty, z.enum(["0", "1"], { error: "MAIL_WORKER must be 0 or 1" }).default("1")),
+  MAIL_WORKER: z.preprocess(blankIsAbsent, z.enum(["0", "1"], { error: "MAIL_WORKER must be 0 or 1" }).default("1")),
   MAIL_WORKER_INTERVAL_MS: whole("MAIL_WORKER_INTERVAL_MS", 15_000, 100),
   PORT: whole("PORT", 3000, 1),
-  HOST: z.preprocess(unsetIfEmpty, z.string().default("0.0.0.0")),
+  HOST: z.preprocess(blankIsAbsent, z.string().default("0.0.0.0")),
   /** Addresses or CIDR ranges of the proxies whose forwarding headers are believed (lib/net/forwarded.ts). */
   TRUSTED_PROXY: text(),
 });

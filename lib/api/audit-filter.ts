@@ -1,11 +1,11 @@
 import { z } from "zod";
+import { blankIsAbsent } from "@/lib/validations/blank";
 import { zodIssues, type IssueDetail } from "@/lib/auth/errors";
 
 export const CHANNELS = ["form", "import", "api-token", "system", "seed"] as const;
 export const AUDIT_PAGE_SIZE = 50;
 const DAY = /^\d{4}-\d{2}-\d{2}$/;
 
-const blankIsAbsent = (v: unknown) => (typeof v === "string" && v.trim() === "" ? undefined : v);
 const opt = <T extends z.ZodType>(s: T) => z.preprocess(blankIsAbsent, s.optional());
 
 /** The audit filters as they travel in the URL, shared by the page and the CSV export. */

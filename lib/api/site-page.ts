@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { blankIsAbsent } from "@/lib/validations/blank";
 import { HttpError, zodIssues } from "@/lib/auth/errors";
 
 /** Sites per answer of GET /api/v1/sites unless `limit` says otherwise, and the most it may say. */
@@ -11,8 +12,6 @@ const cursorSchema = z.tuple([z.string().max(200), z.uuid()]);
 export function encodeSiteCursor(last: { name: string; id: string }): string {
   return Buffer.from(JSON.stringify([last.name, last.id]), "utf8").toString("base64url");
 }
-
-const blankIsAbsent = (v: unknown) => (typeof v === "string" && v.trim() === "" ? undefined : v);
 
 const pageSchema = z.object({
   limit: z.preprocess(
