@@ -84,6 +84,23 @@ describe("GET /api/v1/sites", () => {
       expect((await errorOf(res)).issues, query).toEqual([{ path, message }]);
     }
   });
+
+  it("answers 400 naming the parameter for hostile values: 1 000 characters, pattern metacharacters, a lone surrogate", async () => {
+    actAs(org.session("auditor"));
+    const hostile = ["x".repeat(1000), "(a+)+$.*[\\d]{9999}|^", "\uD800", "\u0000'\"; select 1; --"];
+    for (const value of hostile) {
+      for (const param of ["limit", "after"] as const) {
+        const res = await listSites(`?${param}=${encodeURIComponent(value.replace(/\uD800/, "\uFFFD"))}`);
+        expect(res.status, `${param}=${value.slice(0, 20)}`).toBe(400);
+        const issues = (await errorOf(res)).issues as { path: string }[];
+        expect(issues.map((i) => i.path)).toEqual([param]);
+      }
+    }
+    // A lone surrogate as raw percent-encoded UTF-16 half (invalid UTF-8) reaches the route as U+FFFD.
+    const raw = await listSites("?after=%ED%A0%80");
+    expect(raw.status).toBe(400);
+    expect(((await errorOf(raw)).issues as { path: string }[]).map((i) => i.path)).toEqual(["after"]);
+  });
 });
 
 describe("GET /api/v1/sites/{siteId} and /streams", () => {
